@@ -1,0 +1,59 @@
+using System.CommandLine;
+using Parity.Cli.Commands;
+using Parity.Engine.Errors;
+using Parity.Script.Diagnostics;
+
+namespace Parity.Cli;
+
+/// <summary>
+/// The <c>parity</c> command line. Each subcommand lives in <c>Commands/</c> and exposes
+/// <c>Create(CliContext)</c>; this class wires them up and owns the exit-code contract: usage errors and
+/// bad input exit 2 with a located message on stderr, never a stack trace.
+/// </summary>
+public static class CliApp
+{
+    public static int Run(string[] args, CliContext context)
+    {
+        var root = new RootCommand("Parity: run a dataframe script under two semantic modes, diff the results, gate CI on approved snapshots.");
+        foreach (var command in CreateCommands(context))
+            root.Subcommands.Add(command);
+
+        var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0)
+        {
+            foreach (var error in parsed.Errors)
+                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": " + error.Message);
+            return ExitCodes.BadInput;
+        }
+        try
+        {
+            return parsed.Invoke(new InvocationConfiguration
+            {
+                Output = context.Out,
+                Error = context.Error,
+                EnableDefaultExceptionHandler = false,
+            });
+        }
+        catch (EngineException ex)
+        {
+            context.Error.WriteLine(ex.Format());
+            return ExitCodes.BadInput;
+        }
+        catch (ScriptException ex)
+        {
+            context.Error.WriteLine(ex.Diagnostic.Format());
+            return ExitCodes.BadInput;
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            context.Error.WriteLine("parity: error " + ErrorCodes.FileRead + ": " + ex.Message);
+            return ExitCodes.BadInput;
+        }
+    }
+
+    private static IEnumerable<Command> CreateCommands(CliContext context)
+    {
+        // One line per command; keep the order of spec §4.
+        yield break;
+    }
+}

@@ -1,0 +1,7 @@
+namespace Parity.Script.Diagnostics;
+
+public enum Severity
+{
+    Error,
+    Warning,
+}

@@ -1,0 +1,6 @@
+using Parity.Engine.Frames;
+
+namespace Parity.Script.Running;
+
+/// <summary>A checkpoint reached in one mode: its label, where it stands, and the frame as it was then.</summary>
+public sealed record CheckpointResult(string Label, string FrameName, int Line, int Column, Table Table);

@@ -1,0 +1,18 @@
+namespace Parity.Script.Running;
+
+/// <summary>Settings for one interpreter run.</summary>
+public sealed record RunOptions
+{
+    public static RunOptions Default { get; } = new();
+
+    /// <summary>Load paths may not escape this folder unless <see cref="AllowOutsideRoot"/>; null means the current directory.</summary>
+    public string? Root { get; init; }
+
+    public bool AllowOutsideRoot { get; init; }
+
+    /// <summary>Most rows a derived frame (a join, an append) may have before the run stops with E-LIMIT.</summary>
+    public long MaxRows { get; init; } = 200_000_000;
+
+    /// <summary>Most UTF-8 bytes one string cell may have before the run stops with E-LIMIT.</summary>
+    public long MaxStringBytes { get; init; } = 256L * 1024 * 1024;
+}

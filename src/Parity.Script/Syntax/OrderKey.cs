@@ -1,0 +1,3 @@
+namespace Parity.Script.Syntax;
+
+public sealed record OrderKey(Identifier Column, bool Descending);

@@ -1,0 +1,3 @@
+namespace Parity.Script.Syntax;
+
+public sealed record RenamePair(Identifier From, Identifier To);

@@ -1,0 +1,7 @@
+namespace Parity.Script.Syntax;
+
+public enum UnaryOp
+{
+    Negate,
+    Not,
+}
