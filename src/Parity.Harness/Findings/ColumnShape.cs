@@ -1,0 +1,3 @@
+namespace Parity.Harness.Findings;
+
+public sealed record ColumnShape(string Name, string Type);
