@@ -1,9 +1,11 @@
 using System.Globalization;
+using SortKey = Parity.Engine.Operations.SortKey;
 using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
 using Parity.Engine.Kernels;
 using Parity.Engine.Operations;
+using Parity.Script.Diagnostics;
 using Parity.Script.Syntax;
 
 namespace Parity.Script.Running.Internal;

@@ -3,6 +3,7 @@ using Parity.Engine.Errors;
 using Parity.Engine.Frames;
 using Parity.Engine.Kernels;
 using Parity.Engine.Operations;
+using Parity.Script.Diagnostics;
 using Parity.Script.Syntax;
 
 namespace Parity.Script.Running.Internal;
@@ -104,7 +105,7 @@ internal sealed partial class ScriptRun
     }
 
     private ScriptException UnknownColumn(Identifier name, Table table, string frameName) =>
-        Error(ErrorCodes.UnknownColumn, $"frame '{frameName}' has no column '{name.Name}'" + ColumnHints.DidYouMean(name.Name, table.Names), name.Span);
+        Error(ErrorCodes.UnknownColumn, $"frame '{frameName}' has no column '{name.Name}'" + NameSuggester.DidYouMean(name.Name, table.Names), name.Span);
 
     private void RequireColumn(Identifier name, Table table, string frameName)
     {
@@ -175,7 +176,7 @@ internal sealed partial class ScriptRun
                 return Kernel(call, () => Functions.Round(x, digits, _mode));
             }
             default:
-                throw Error(ErrorCodes.UnknownFunction, $"unknown function '{call.Function.Name}'" + ColumnHints.DidYouMean(fn, KnownFunctions), call.Function.Span);
+                throw Error(ErrorCodes.UnknownFunction, $"unknown function '{call.Function.Name}'" + NameSuggester.DidYouMean(fn, KnownFunctions), call.Function.Span);
         }
     }
 

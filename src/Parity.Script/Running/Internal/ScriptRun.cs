@@ -101,7 +101,7 @@ internal sealed partial class ScriptRun
                     break;
                 }
                 default:
-                    throw Error(ErrorCodes.BadOption, $"unknown load option '{o.Key.Name}'" + ColumnHints.DidYouMean(o.Key.Name, ["missing", "delimiter"]), o.Key.Span);
+                    throw Error(ErrorCodes.BadOption, $"unknown load option '{o.Key.Name}'" + NameSuggester.DidYouMean(o.Key.Name, ["missing", "delimiter"]), o.Key.Span);
             }
         }
         Table table;
@@ -148,7 +148,7 @@ internal sealed partial class ScriptRun
     private NamedFrame Named(Identifier id)
     {
         if (_frames.TryGetValue(id.Name, out var f)) return f;
-        throw Error(ErrorCodes.UnknownFrame, $"no frame named '{id.Name}'" + ColumnHints.DidYouMean(id.Name, _frames.Keys), id.Span);
+        throw Error(ErrorCodes.UnknownFrame, $"no frame named '{id.Name}'" + NameSuggester.DidYouMean(id.Name, _frames.Keys), id.Span);
     }
 
     private Diagnostic Diag(string code, string message, SourceSpan span) => new(code, message, _script.File, span);
