@@ -261,7 +261,7 @@ internal sealed class ScriptChecker
         {
             var extension = Path.GetExtension(load.Path);
             if (extension.Equals(".parquet", StringComparison.OrdinalIgnoreCase)) format = "parquet";
-            else if (extension.Equals(".arrow", StringComparison.OrdinalIgnoreCase)) format = "arrow";
+            else if (extension.ToLowerInvariant() is ".arrow" or ".arrows" or ".ipc" or ".feather") format = "arrow"; // as DataLoader
         }
 
         var seen = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
