@@ -59,14 +59,28 @@ internal sealed class CsvColumnBuilder
         _offsets[_count] = (int)_bytes;
     }
 
+    // A value that parses as a number can be neither a bool nor a timestamp (and an int is also a float),
+    // so each value rules out the kinds it cannot be and the column keeps the first kind all values fit.
     private void Infer(ReadOnlySpan<char> v)
     {
-        if (_canInt && !long.TryParse(v, IntegerStyle, CultureInfo.InvariantCulture, out _)) _canInt = false;
-        if (_canInt) return;
-        if (_canFloat && !double.TryParse(v, FloatStyle, CultureInfo.InvariantCulture, out _)) _canFloat = false;
-        if (_canFloat) return;
-        if (_canBool && !(v.Equals("true", StringComparison.OrdinalIgnoreCase) || v.Equals("false", StringComparison.OrdinalIgnoreCase))) _canBool = false;
-        if (_canBool) return;
+        if (_canInt && long.TryParse(v, IntegerStyle, CultureInfo.InvariantCulture, out _))
+        {
+            _canBool = _canTime = false;
+            return;
+        }
+        _canInt = false;
+        if (_canFloat && double.TryParse(v, FloatStyle, CultureInfo.InvariantCulture, out _))
+        {
+            _canBool = _canTime = false;
+            return;
+        }
+        _canFloat = false;
+        if (_canBool && (v.Equals("true", StringComparison.OrdinalIgnoreCase) || v.Equals("false", StringComparison.OrdinalIgnoreCase)))
+        {
+            _canTime = false;
+            return;
+        }
+        _canBool = false;
         if (_canTime && !Iso8601.TryParse(v, out _)) _canTime = false;
     }
 
