@@ -76,6 +76,18 @@ public sealed class CsvLoaderTests : IDisposable
     }
 
     [Fact]
+    public void Ints_turn_float_when_a_later_value_needs_it()
+    {
+        var lines = Enumerable.Range(0, 300).Select(i => i == 7 ? "" : (i * 3).ToString(System.Globalization.CultureInfo.InvariantCulture)).Append("0.5");
+        var path = _files.Write("t.csv", "a\n" + string.Join("\n", lines) + "\n");
+        var col = DataLoader.Load(path, LoadOptions.Default, Mode.Modern)["a"];
+        Assert.Equal(ColumnType.Float64, col.Type);
+        Assert.Equal(897.0, col.GetValue(299).Float64);
+        Assert.True(col.IsMissing(7));
+        Assert.Equal(0.5, col.GetValue(300).Float64);
+    }
+
+    [Fact]
     public void A_column_of_only_missing_cells_is_float64()
     {
         var path = _files.Write("t.csv", "a,b\n1,\n2,\n");
