@@ -114,14 +114,14 @@ public sealed class HarborLineGenerator
         {
             ids[i] = 1000 + i;
             routeIds[i] = 1 + rng.Next(Routes.Length);
-            departs[i] = rng.Next(40) == 0 ? null : start.AddMinutes(45L * i + 15 * rng.Next(3));
+            departs[i] = rng.Next(40) == 0 || i % 17 == 3 ? null : start.AddMinutes(45L * i + 15 * rng.Next(3));
             vessels[i] = rng.Next(15) == 0 ? null : Vessels[rng.Next(Vessels.Length)];
             capacity[i] = 40 + 20 * rng.Next(6);
-            cancelled[i] = rng.Next(25) == 0 ? null : rng.Next(12) == 0;
+            cancelled[i] = rng.Next(25) == 0 || i % 19 == 5 ? null : rng.Next(12) == 0;
         }
         var fId = new DataField<long>("sailing_id");
         var fRoute = new DataField<long>("route_id");
-        var fDeparts = new DateTimeDataField("departs_at", DateTimeFormat.DateAndTime, isAdjustedToUTC: true, unit: DateTimeTimeUnit.Micros, isNullable: true);
+        var fDeparts = new DateTimeDataField("departs_at", DateTimeFormat.Timestamp, isAdjustedToUTC: true, unit: DateTimeTimeUnit.Micros, isNullable: true);
         var fVessel = new DataField<string>("vessel", true);
         var fCapacity = new DataField<int>("capacity");
         var fCancelled = new DataField<bool?>("cancelled");
