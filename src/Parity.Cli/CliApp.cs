@@ -55,5 +55,7 @@ public static class CliApp
     {
         // One line per command; keep the order of spec §4.
         yield return ShowCommand.Create(context);
+        yield return InspectCommand.Create(context);
+        yield return FixturesCommand.Create(context);
     }
 }

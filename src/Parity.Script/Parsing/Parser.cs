@@ -54,8 +54,9 @@ internal sealed partial class Parser
             }
             try
             {
-                statements.Add(ParseStatement());
+                var statement = ParseStatement();
                 if (!AtLineEnd) throw Expected("end of line");
+                statements.Add(statement);
             }
             catch (SyntaxFailure failure)
             {
@@ -63,6 +64,7 @@ internal sealed partial class Parser
                 while (!AtLineEnd) _index++;
             }
             _nesting = 0;
+            _depths.Clear();
         }
         return new ScriptNode(_file, statements);
     }
@@ -287,7 +289,10 @@ internal sealed partial class Parser
 
     private string? DescribeBadToken(Token token) => token.Kind switch
     {
-        TokenKind.BadCharacter => "unexpected character " + DescribeCharacter(token.Text(_text)),
+        TokenKind.BadCharacter => "unexpected character " + DescribeCharacter(token.Text(_text))
+            + (token.Text(_text)[0] > 127 && !char.IsWhiteSpace(token.Text(_text)[0])
+                ? " (a name with symbols is written in double quotes, such as \"" + token.Text(_text).ToString() + "\")"
+                : ""),
         TokenKind.UnterminatedString => "unterminated string: a string literal must end with ' on the same line (write '' for a quote inside)",
         TokenKind.UnterminatedName => "unterminated quoted name: a name in double quotes must end with \" on the same line (write \"\" for a quote inside)",
         TokenKind.EmptyName => "empty quoted name \"\"",
