@@ -54,6 +54,6 @@ public static class CliApp
     private static IEnumerable<Command> CreateCommands(CliContext context)
     {
         // One line per command; keep the order of spec §4.
-        yield break;
+        yield return ShowCommand.Create(context);
     }
 }
