@@ -59,7 +59,7 @@ public static class CliApp
         yield return AcceptCommand.Create(context);
         yield return ShowCommand.Create(context);
         yield return InspectCommand.Create(context);
-        yield return FixturesCommand.Create(context);
         yield return MatrixCommand.Create(context);
+        yield return FixturesCommand.Create(context);
     }
 }
