@@ -31,10 +31,16 @@ internal sealed class ScriptChecker
         _diagnostics = diagnostics;
     }
 
-    /// <summary>Appends the static errors of <paramref name="script"/> to <paramref name="diagnostics"/>.</summary>
-    public static void Check(ScriptNode script, List<Diagnostic> diagnostics)
+    /// <summary>
+    /// Appends the static errors of <paramref name="script"/> to <paramref name="diagnostics"/>. Frames named in
+    /// <paramref name="assumedFrames"/> (defined by statements that had a syntax error) count as defined, so one
+    /// broken <c>load</c> is one error, not one per later use.
+    /// </summary>
+    public static void Check(ScriptNode script, List<Diagnostic> diagnostics, IReadOnlySet<string>? assumedFrames = null)
     {
         var checker = new ScriptChecker(script.File, diagnostics);
+        if (assumedFrames is not null)
+            foreach (var name in assumedFrames) checker._defined.TryAdd(name, 0);
         foreach (var statement in script.Statements)
         {
             var name = statement switch
@@ -255,7 +261,7 @@ internal sealed class ScriptChecker
         {
             var extension = Path.GetExtension(load.Path);
             if (extension.Equals(".parquet", StringComparison.OrdinalIgnoreCase)) format = "parquet";
-            else if (extension.Equals(".arrow", StringComparison.OrdinalIgnoreCase)) format = "arrow";
+            else if (extension.ToLowerInvariant() is ".arrow" or ".arrows" or ".ipc" or ".feather") format = "arrow"; // as DataLoader
         }
 
         var seen = new HashSet<string>(StringComparer.OrdinalIgnoreCase);

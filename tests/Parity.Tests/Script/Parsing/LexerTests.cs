@@ -31,6 +31,7 @@ public sealed class LexerTests
     [InlineData("12abc", "BadNumber:12abc@0:0")]
     [InlineData("1.2.3", "BadNumber:1.2.3@0:0")]
     [InlineData("t.fare", "Word:t@0:0 Dot:.@0:1 Word:fare@0:2")]
+    [InlineData("2).x 2.x", "Integer:2@0:0 RightParen:)@0:1 Dot:.@0:2 Word:x@0:3 Integer:2@0:5 Dot:.@0:6 Word:x@0:7")]
     [InlineData("'it''s'", "String:'it''s'@0:0")]
     [InlineData("''", "String:''@0:0")]
     [InlineData("'open", "UnterminatedString:'open@0:0")]

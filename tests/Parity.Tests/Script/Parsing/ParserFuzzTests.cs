@@ -64,7 +64,8 @@ public sealed class ParserFuzzTests
                         text.Insert(at, Pieces[random.Next(Pieces.Length)]);
                         break;
                     case 2:
-                        text[at] = (char)random.Next(32, 127);
+                        // Mostly ASCII; sometimes any UTF-16 unit, lone surrogates included.
+                        text[at] = random.Next(4) == 0 ? (char)random.Next(0, 0x10000) : (char)random.Next(32, 127);
                         break;
                     default:
                         var from = random.Next(text.Length);
@@ -90,6 +91,31 @@ public sealed class ParserFuzzTests
         }
     }
 
+    /// <summary>
+    /// The 0-based line and code point column of a UTF-16 offset, computed independently of the lexer:
+    /// \n, \r\n and \r end a line; a leading byte order mark takes no column; a surrogate pair is one column
+    /// (one Unicode scalar value) and a lone surrogate counts as one.
+    /// </summary>
+    private static (int Line, int Column) PositionOf(string text, int offset)
+    {
+        int line = 0, column = 0;
+        var i = text.Length > 0 && text[0] == '\uFEFF' ? 1 : 0;
+        while (i < offset)
+        {
+            var c = text[i];
+            if (c == '\r' || c == '\n')
+            {
+                i += c == '\r' && i + 1 < text.Length && text[i + 1] == '\n' ? 2 : 1;
+                line++;
+                column = 0;
+                continue;
+            }
+            i += char.IsHighSurrogate(c) && i + 1 < text.Length && char.IsLowSurrogate(text[i + 1]) ? 2 : 1;
+            column++;
+        }
+        return (line, column);
+    }
+
     private static void AssertWellFormed(string text)
     {
         var result = ScriptParser.Parse(text, "fuzz.parity");
@@ -103,6 +129,7 @@ public sealed class ParserFuzzTests
             Assert.InRange(d.Span.LineNumber, 1, lines + text.Length); // \r alone also ends a line
             Assert.True(d.Span.ColumnNumber >= 1);
             Assert.StartsWith("fuzz.parity:", d.Format(), StringComparison.Ordinal);
+            Assert.Equal(PositionOf(text, d.Span.Offset), (d.Span.Line, d.Span.Column));
         }
         _ = SyntaxPrinter.Print(result.Script);
     }
