@@ -33,14 +33,6 @@ public sealed class LoaderFuzzTests(ITestOutputHelper output) : IDisposable
 
     private static readonly byte[][] BinaryTokens = [[0], [0xFF, 0xFF, 0xFF, 0x7F], [0xFF, 0xFF, 0xFF, 0xFF], "PAR1"u8.ToArray(), "ARROW1"u8.ToArray(), [0x80]];
 
-    /// <summary>
-    /// KNOWN ISSUE (Apache.Arrow 23.0.0's ArrowStreamReader, reported, not ours to fix): a record batch whose
-    /// field-node length is corrupted makes the reader allocate about a gigabyte before it throws "Field length
-    /// of N must be >= 0 and &lt;= 2147483647" (seed 9113, input #51). The allocation is bounded by that check
-    /// and freed at once, so Arrow inputs get a larger budget; everything after the reader is held to the normal one.
-    /// </summary>
-    private const long ArrowAllocationBudget = 3L * 1024 * 1024 * 1024;
-
     private readonly TestFiles _files = new();
 
     public void Dispose() => _files.Dispose();
@@ -135,7 +127,7 @@ public sealed class LoaderFuzzTests(ITestOutputHelper output) : IDisposable
                 if (needsRow(e)) Assert.True(e.Row > 0, "no row in: " + e.Format());
                 throw;
             }
-        }, Describe, extension == "arrow" ? ArrowAllocationBudget : Fuzz.AllocationBudget);
+        }, Describe);
         File.Delete(path);
         return outcome;
     }

@@ -49,6 +49,8 @@ internal static class ArrowSourceReader
             var start = memory.Span.StartsWith(Magic) ? 8 : 0;
             if (start == 8 && length < 8 + 4)
                 throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "the file is truncated after its header");
+            if (ArrowIpcPrecheck.Check(memory.Span[start..], start == 8) is { } corrupt)
+                throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "not a sound Arrow IPC file: " + corrupt);
             using var reader = new ArrowStreamReader((ReadOnlyMemory<byte>)memory[start..]);
             var batches = new List<RecordBatch>();
             RecordBatch? batch;
