@@ -79,6 +79,10 @@ internal static class ArrowSourceReader
         {
             throw;
         }
+        catch (OutOfMemoryException)
+        {
+            throw LoadThrow.OutOfMemory(display);
+        }
         catch (Exception ex)
         {
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "cannot read as Arrow IPC: " + ex.Message, 0, col);

@@ -68,6 +68,10 @@ internal static class CsvSourceReader
         {
             throw LoadThrow.FileRead(display, ex.Message);
         }
+        catch (OutOfMemoryException)
+        {
+            throw LoadThrow.OutOfMemory(display);
+        }
         catch (Exception ex)
         {
             throw LoadThrow.Format(display, "cannot parse as CSV: " + ex.Message);

@@ -14,6 +14,10 @@ internal static class LoadThrow
     public static EngineException FileRead(string file, string reason) =>
         new(ErrorCodes.FileRead, "cannot read the file: " + reason, file, 0, 0);
 
+    /// <summary>A load that ran out of memory: the allocation that failed was the loader's, so the process goes on.</summary>
+    public static EngineException OutOfMemory(string file) =>
+        new(ErrorCodes.Limit, "not enough memory to load this file (see docs/reliability.md, \"Large inputs\")", file, 0, 0);
+
     public static EngineException Format(string file, string reason) =>
         new(ErrorCodes.FileFormat, reason, file, 0, 0);
 }

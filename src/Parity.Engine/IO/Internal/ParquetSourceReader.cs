@@ -40,6 +40,10 @@ internal static class ParquetSourceReader
             {
                 throw;
             }
+            catch (OutOfMemoryException)
+            {
+                throw LoadThrow.OutOfMemory(display);
+            }
             catch (Exception ex)
             {
                 throw LoadThrow.Error(ErrorCodes.Parquet, display, "cannot read as Parquet: " + ex.Message, 0, field);
