@@ -57,12 +57,12 @@ internal static class Fuzz
         }
         catch (EngineException e)
         {
-            Assert.True(e.Code != ErrorCodes.Internal, "internal error for " + describe() + ": " + e.Format());
+            if (e.Code == ErrorCodes.Internal) Assert.Fail("internal error for " + describe() + ": " + e.Format());
             outcome = e.Code;
         }
         catch (ScriptException e)
         {
-            Assert.True(e.Diagnostic.Code != ErrorCodes.Internal, "internal error for " + describe() + ": " + e.Diagnostic.Format());
+            if (e.Diagnostic.Code == ErrorCodes.Internal) Assert.Fail("internal error for " + describe() + ": " + e.Diagnostic.Format());
             outcome = e.Diagnostic.Code;
         }
         catch (Exception e)
@@ -70,7 +70,8 @@ internal static class Fuzz
             Assert.Fail("unhandled " + e.GetType().Name + " for " + describe() + ": " + e);
             throw;
         }
-        Assert.True(allocated < allocationBudget, "allocated " + allocated.ToString(CultureInfo.InvariantCulture) + " bytes for " + describe());
+        if (allocated >= allocationBudget)
+            Assert.Fail("allocated " + allocated.ToString(CultureInfo.InvariantCulture) + " bytes for " + describe());
         return outcome;
     }
 

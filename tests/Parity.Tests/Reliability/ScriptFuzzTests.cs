@@ -45,7 +45,7 @@ public sealed class ScriptFuzzTests(ITestOutputHelper output)
     private static readonly RunOptions Options = RunOptions.Default with
     {
         Root = TestFiles.RepoRoot,
-        MaxRows = 2_000_000,
+        MaxRows = 100_000, // joins on low-cardinality keys are legal but big: keep each input small
         MaxStringBytes = 1 << 20,
     };
 
@@ -99,7 +99,7 @@ public sealed class ScriptFuzzTests(ITestOutputHelper output)
         string Describe()
         {
             var keep = Path.Combine(Path.GetTempPath(), "parity-fuzz-failure.parity");
-            File.WriteAllText(keep, text);
+            File.WriteAllText(keep, text, new UTF8Encoding(false, throwOnInvalidBytes: false)); // lone surrogates become U+FFFD
             return "script #" + n.ToString(CultureInfo.InvariantCulture) + " saved to " + keep + ":\n" + text;
         }
         var outcome = Fuzz.Outcome(() =>
@@ -117,7 +117,7 @@ public sealed class ScriptFuzzTests(ITestOutputHelper output)
                 var run = Interpreter.Run(parsed.Script, mode, dir, Options);
                 if (run.Failure is { } f)
                 {
-                    Assert.True(f.Code != Parity.Engine.Errors.ErrorCodes.Internal, "internal error in " + mode.Name + ": " + f.Format() + "\n" + Describe());
+                    if (f.Code == Parity.Engine.Errors.ErrorCodes.Internal) Assert.Fail("internal error in " + mode.Name + ": " + f.Format() + "\n" + Describe());
                     Assert.True(f.Span.LineNumber >= 1, "unlocated run-time error " + f.Format());
                     codes.Add(f.Code);
                 }
