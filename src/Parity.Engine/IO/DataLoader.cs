@@ -1,14 +1,101 @@
+using Parity.Engine.Errors;
 using Parity.Engine.Frames;
+using Parity.Engine.IO.Internal;
 using Parity.Engine.Modes;
 
 namespace Parity.Engine.IO;
 
-/// <summary>Loads CSV, Parquet and Arrow IPC files into a table for one mode. PENDING: the foundation issue replaces this body.</summary>
+/// <summary>
+/// Loads CSV, Parquet and Arrow IPC files into a table for one mode (spec §2.1, §6). A file is parsed once
+/// into a mode-neutral form (typed buffers plus validity) that a small cache keeps, keyed by full path,
+/// options, size and last write time, so loading it for several modes converts without re-parsing.
+/// </summary>
 public static class DataLoader
 {
+    private const int CacheSize = 4;
+    private static readonly Lock Gate = new();
+    private static readonly LinkedList<(string Key, SourceTable Source)> Cache = new();
+
     /// <summary>
     /// Loads <paramref name="path"/> with the types and missing markers of <paramref name="mode"/> (spec §2.1, §6).
-    /// Bad input throws <see cref="Errors.EngineException"/> with file, row and column where known.
+    /// Bad input throws <see cref="EngineException"/> with file, row and column where known.
     /// </summary>
-    public static Table Load(string path, LoadOptions options, Mode mode) => throw new NotImplementedException("pending: loaders");
+    public static Table Load(string path, LoadOptions options, Mode mode) => ReadSource(path, options).ToTable(mode);
+
+    /// <summary>The format a path is read as: <c>csv</c>, <c>parquet</c> or <c>arrow</c>; null when neither option nor extension says.</summary>
+    public static string? FormatOf(string path, LoadOptions options)
+    {
+        if (options.Format is { } f)
+        {
+            var lower = f.ToLowerInvariant();
+            return lower switch
+            {
+                "csv" => "csv",
+                "parquet" => "parquet",
+                "arrow" or "ipc" or "feather" or "arrows" => "arrow",
+                _ => null,
+            };
+        }
+        return Path.GetExtension(path).ToLowerInvariant() switch
+        {
+            ".csv" => "csv",
+            ".parquet" => "parquet",
+            ".arrow" or ".arrows" or ".ipc" or ".feather" => "arrow",
+            _ => null,
+        };
+    }
+
+    /// <summary>Drops every cached parse (tests and benchmarks that measure a cold load).</summary>
+    public static void ClearCache()
+    {
+        lock (Gate) Cache.Clear();
+    }
+
+    internal static SourceTable ReadSource(string path, LoadOptions options)
+    {
+        var display = options.DisplayPath ?? path;
+        var format = FormatOf(path, options)
+            ?? throw LoadThrow.Format(display, options.Format is null
+                ? "unknown file extension: expected .csv, .parquet, .arrow, .arrows, .ipc or .feather (or say: as csv)"
+                : $"unknown format '{options.Format}': expected csv, parquet or arrow");
+        string full;
+        FileInfo info;
+        try
+        {
+            full = Path.GetFullPath(path);
+            info = new FileInfo(full);
+        }
+        catch (Exception ex) when (ex is ArgumentException or NotSupportedException or PathTooLongException or UnauthorizedAccessException or IOException)
+        {
+            throw LoadThrow.FileRead(display, ex.Message);
+        }
+        if (!info.Exists)
+            throw Directory.Exists(full) ? LoadThrow.FileRead(display, "it is a directory") : LoadThrow.FileNotFound(display);
+        var key = string.Join('\u001f', full, format, options.Delimiter.ToString(),
+            options.MissingTokens is null ? "\u0000" : string.Join('\u001e', options.MissingTokens),
+            info.Length.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            info.LastWriteTimeUtc.Ticks.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        lock (Gate)
+        {
+            for (var node = Cache.First; node is not null; node = node.Next)
+            {
+                if (!string.Equals(node.Value.Key, key, StringComparison.Ordinal)) continue;
+                Cache.Remove(node);
+                Cache.AddFirst(node);
+                return node.Value.Source;
+            }
+        }
+        var source = format switch
+        {
+            "csv" => CsvSourceReader.Read(full, display, options),
+            "parquet" => ParquetSourceReader.Read(full, display),
+            _ => ArrowSourceReader.Read(full, display),
+        };
+        lock (Gate)
+        {
+            Cache.AddFirst((key, source));
+            while (Cache.Count > CacheSize) Cache.RemoveLast();
+        }
+        return source;
+    }
 }
