@@ -58,6 +58,8 @@ public static class CliApp
         yield return CheckCommand.Create(context);
         yield return AcceptCommand.Create(context);
         yield return ShowCommand.Create(context);
+        yield return InspectCommand.Create(context);
         yield return MatrixCommand.Create(context);
+        yield return FixturesCommand.Create(context);
     }
 }

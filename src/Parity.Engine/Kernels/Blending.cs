@@ -22,8 +22,17 @@ public static class Blending
         if (old is not null && old.Length != n) throw new ArgumentException("lengths differ", nameof(old));
         var all = selected.IndexOf(false) < 0;
         var writtenAllMissing = AllSelectedMissing(values, selected);
-        if (all && old is null) return Normalized(values, mode);
-        if (all && !writtenAllMissing && !KernelSupport.AllMissing(values)) return Normalized(values, mode);
+        if (old is null || KernelSupport.AllMissing(old))
+        {
+            if (all) return Normalized(values, mode);
+        }
+        else if (all && !writtenAllMissing)
+        {
+            // A whole-column write keeps the column when the types agree (columns are immutable: no copy).
+            if (old.Type == values.Type && old is not ObjectColumn) return Normalized(values, mode);
+            if (old is Float64Column && values is Int64Column) return Casts.Cast(values, ColumnType.Float64, mode);
+            if (old is Int64Column && values is Float64Column) return Normalized(values, mode);
+        }
         if (old is not null && old.Type == values.Type && old is not ObjectColumn && !writtenAllMissing)
         {
             var fast = SameType(old, values, selected, mode);
@@ -45,7 +54,34 @@ public static class Blending
             return ColumnFactory.Build(cells, t, mode);
         }
         var type = ColumnFactory.InferType(cells, mode, hint, ErrorCodes.TypeWrite);
+        if (all && old is not null && !KernelSupport.AllMissing(old)) type = WithOld(old, cells, type, mode);
         return ColumnFactory.Build(cells, type, mode);
+    }
+
+    /// <summary>
+    /// A write of every row still writes into the old column: strings meeting non-strings follow the typed-write
+    /// rule (object under boxed, <c>E-TYPE-WRITE</c> under arrow) and an int64 write into float64 stays float64.
+    /// </summary>
+    private static ColumnType WithOld(Column old, ReadOnlySpan<Value> cells, ColumnType type, Mode mode)
+    {
+        bool anyString = false, anyOther = false;
+        foreach (var v in cells)
+        {
+            if (v.IsMissing) continue;
+            if (v.Kind == ValueKind.String) anyString = true;
+            else anyOther = true;
+        }
+        var oldString = KernelSupport.IsString(old);
+        var oldMixed = old is ObjectColumn && !oldString;
+        if (!oldMixed && ((oldString && anyOther) || (!oldString && anyString)))
+        {
+            if (mode.IsArrow)
+                throw new EngineException(ErrorCodes.TypeWrite,
+                    $"cannot write {(anyString ? "strings" : "non-string values")} into a {old.TypeLabel} column under Arrow string storage");
+            return ColumnType.Object;
+        }
+        if (old.Type == ColumnType.Float64 && type == ColumnType.Int64) return ColumnType.Float64;
+        return type;
     }
 
     private static MissingKind MissingFor(Column c, Mode mode) =>

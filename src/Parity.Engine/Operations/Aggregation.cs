@@ -112,11 +112,13 @@ public static class Aggregation
                 var sums = new long[gc];
                 var span = ic.Span;
                 var v = ic.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 var overflow = false;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     var a = sums[g];
                     var b = span[i];
                     var s = unchecked(a + b);
@@ -131,11 +133,13 @@ public static class Aggregation
                 var sums = new double[gc];
                 var span = fc.Span;
                 var v = fc.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 var nanIsMissing = fc.Marker == MissingMarker.Nan;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     var d = span[i];
                     if (nanIsMissing && double.IsNaN(d)) continue;
                     sums[g] += d;
@@ -147,10 +151,12 @@ public static class Aggregation
                 var sums = new long[gc];
                 var span = bc.Span;
                 var v = bc.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g >= 0 && span[i] && v.IsValid(i)) sums[g]++;
+                    if (g >= 0 && span[i] && ValidBits.IsValid(vb, vo, i)) sums[g]++;
                 }
                 return new Int64Column(sums, mode.Missing);
             }
@@ -263,10 +269,12 @@ public static class Aggregation
             {
                 var span = ic.Span;
                 var v = ic.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     sums[g] += span[i];
                     counts[g]++;
                 }
@@ -276,11 +284,13 @@ public static class Aggregation
             {
                 var span = fc.Span;
                 var v = fc.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 var nanIsMissing = fc.Marker == MissingMarker.Nan;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     var d = span[i];
                     if (nanIsMissing && double.IsNaN(d)) continue;
                     sums[g] += d;
@@ -292,10 +302,12 @@ public static class Aggregation
             {
                 var span = bc.Span;
                 var v = bc.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     if (span[i]) sums[g] += 1;
                     counts[g]++;
                 }
@@ -338,7 +350,7 @@ public static class Aggregation
     /// <summary>Gathers the chosen rows (-1: the group has no non-missing value) and normalises for the mode.</summary>
     private static Column Pick(Column input, int[] rows, Mode mode)
     {
-        var gathered = input.Gather(rows);
+        var gathered = Gatherer.Gather(input, rows);
         return rows.AsSpan().IndexOf(-1) >= 0 ? ColumnFactory.Normalize(gathered, mode) : gathered;
     }
 
@@ -370,10 +382,12 @@ public static class Aggregation
                 var p = (PrimitiveColumn<long>)input;
                 var span = p.Span;
                 var v = p.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     var w = win[g];
                     if (w < 0 || (max ? span[i] > span[w] : span[i] < span[w])) win[g] = i;
                 }
@@ -383,11 +397,13 @@ public static class Aggregation
             {
                 var span = fc.Span;
                 var v = fc.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 var nanIsMissing = fc.Marker == MissingMarker.Nan;
                 for (var i = 0; i < span.Length; i++)
                 {
                     var g = groupOf[i];
-                    if (g < 0 || !v.IsValid(i)) continue;
+                    if (g < 0 || !ValidBits.IsValid(vb, vo, i)) continue;
                     var d = span[i];
                     if (nanIsMissing && double.IsNaN(d)) continue;
                     var w = win[g];

@@ -16,27 +16,46 @@ public static class Grouping
     {
         var n = table.RowCount;
         if (keys.Count == 0) return GroupIndex.Single(n);
-        var acc = new long[n];
-        long card = 1;
-        for (var k = 0; k < keys.Count; k++)
+        int[] groupOf;
+        int groupCount;
+        if (keys.Count == 1)
         {
-            var index = table.IndexOf(keys[k]);
-            if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{keys[k]}'");
-            var ranks = ColumnRanker.Rank(table.Columns[index]);
-            KeyCombiner.Append(acc, ref card, ranks.Ranks, ranks.ValueCount);
+            // One key: its dense ranks already are group numbers in ascending key order.
+            var ranks = ColumnRanker.Rank(KeyColumn(table, keys[0]));
+            groupOf = ranks.Ranks;
+            groupCount = ranks.ValueCount;
+            for (var i = 0; i < groupOf.Length; i++)
+                if (groupOf[i] < 0) groupOf[i] = -1; // a boxed None (-2) is just missing here
         }
-        var groupCount = KeyCombiner.Densify(acc, card);
-        var groupOf = new int[n];
+        else
+        {
+            var acc = new long[n];
+            long card = 1;
+            for (var k = 0; k < keys.Count; k++)
+            {
+                var ranks = ColumnRanker.Rank(KeyColumn(table, keys[k]));
+                KeyCombiner.Append(acc, ref card, ranks.Ranks, ranks.ValueCount);
+            }
+            groupCount = KeyCombiner.Densify(acc, card);
+            groupOf = new int[n];
+            for (var i = 0; i < n; i++) groupOf[i] = (int)acc[i];
+        }
         var representative = new int[groupCount];
         representative.AsSpan().Fill(-1);
         var dropped = 0;
         for (var i = 0; i < n; i++)
         {
-            var g = (int)acc[i];
-            groupOf[i] = g;
+            var g = groupOf[i];
             if (g < 0) { dropped++; continue; }
             if (representative[g] < 0) representative[g] = i;
         }
         return new GroupIndex(groupOf, groupCount, representative, dropped);
+    }
+
+    private static Columns.Column KeyColumn(Table table, string name)
+    {
+        var index = table.IndexOf(name);
+        if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{name}'");
+        return table.Columns[index];
     }
 }

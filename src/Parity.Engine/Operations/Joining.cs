@@ -84,7 +84,7 @@ public static class Joining
         {
             names.Add(left.Names[c]);
             taken.Add(left.Names[c]);
-            columns.Add(left.Columns[c].Gather(leftRows));
+            columns.Add(Gatherer.Gather(left.Columns[c], leftRows));
         }
         for (var c = 0; c < right.ColumnCount; c++)
         {
@@ -98,7 +98,7 @@ public static class Joining
             }
             taken.Add(name);
             names.Add(name);
-            var gathered = right.Columns[c].Gather(rightRows);
+            var gathered = Gatherer.Gather(right.Columns[c], rightRows);
             columns.Add(unmatched ? ColumnFactory.Normalize(gathered, mode) : gathered);
         }
         return new Table(names, columns, (int)total);

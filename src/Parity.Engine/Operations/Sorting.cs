@@ -1,5 +1,7 @@
+using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
+using Parity.Engine.Modes;
 using Parity.Engine.Operations.Internal;
 
 namespace Parity.Engine.Operations;
@@ -24,6 +26,11 @@ public static class Sorting
     {
         var n = table.RowCount;
         if (keys.Count == 0 || n == 0) return ColumnRanker.Iota(n);
+        if (keys.Count == 1)
+        {
+            var only = table.IndexOf(keys[0].Column);
+            if (only >= 0 && TrySingleNumeric(table.Columns[only], keys[0].Descending, out var direct)) return direct;
+        }
         var acc = new long[n];
         long card = 1;
         var sortRanks = new int[n];
@@ -50,6 +57,70 @@ public static class Sorting
             var r = src[i];
             into[i] = r < 0 ? missing : descending && r <= top ? top - r : r;
         }
+    }
+
+    /// <summary>
+    /// One numeric key: a stable radix sort of order-preserving keys (complemented when descending, so ties
+    /// keep input order), then the NaN-value rows, then the missing rows, each in input order.
+    /// </summary>
+    private static bool TrySingleNumeric(Column column, bool descending, out int[] perm)
+    {
+        var n = column.Length;
+        var flip = descending ? ulong.MaxValue : 0UL;
+        int m = 0, nanCount = 0, missingCount = 0;
+        ulong[] keys;
+        int[] rows;
+        int[] tail; // NaN values from the front, missing rows from the back
+        switch (column)
+        {
+            case Int64Column or TimestampColumn:
+            {
+                var p = (PrimitiveColumn<long>)column;
+                var span = p.Span;
+                var bits = p.Validity.Bits.Span;
+                var off = p.Validity.BitOffset;
+                keys = new ulong[n];
+                rows = new int[n];
+                tail = new int[n];
+                for (var i = 0; i < n; i++)
+                {
+                    if (!ValidBits.IsValid(bits, off, i)) { tail[n - 1 - missingCount++] = i; continue; }
+                    keys[m] = RadixRanks.OfLong(span[i]) ^ flip;
+                    rows[m++] = i;
+                }
+                break;
+            }
+            case Float64Column f:
+            {
+                var span = f.Span;
+                var bits = f.Validity.Bits.Span;
+                var off = f.Validity.BitOffset;
+                var nanIsMissing = f.Marker == MissingMarker.Nan;
+                keys = new ulong[n];
+                rows = new int[n];
+                tail = new int[n];
+                for (var i = 0; i < n; i++)
+                {
+                    var d = span[i];
+                    if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) { tail[n - 1 - missingCount++] = i; continue; }
+                    if (double.IsNaN(d)) { tail[nanCount++] = i; continue; }
+                    keys[m] = RadixRanks.OfDouble(d) ^ flip;
+                    rows[m++] = i;
+                }
+                break;
+            }
+            default:
+                perm = [];
+                return false;
+        }
+        RadixRanks.Sort(ref keys, ref rows, m);
+        perm = new int[n];
+        rows.AsSpan(0, m).CopyTo(perm);
+        tail.AsSpan(0, nanCount).CopyTo(perm.AsSpan(m));
+        // Missing rows were written backwards from the end of tail; restore input order.
+        var at = m + nanCount;
+        for (var k = 0; k < missingCount; k++) perm[at + k] = tail[n - 1 - k];
+        return true;
     }
 
     /// <summary>Stable: rows with equal keys keep their input order.</summary>

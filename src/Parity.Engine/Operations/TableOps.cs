@@ -20,7 +20,7 @@ public static class TableOps
         var columns = new Column[table.ColumnCount];
         for (var c = 0; c < columns.Length; c++)
         {
-            var gathered = table.Columns[c].Gather(rows);
+            var gathered = Gatherer.Gather(table.Columns[c], rows);
             columns[c] = anyMissing ? ColumnFactory.Normalize(gathered, mode) : gathered;
         }
         return new Table(table.Names, columns, rows.Length);
@@ -70,7 +70,7 @@ public static class TableOps
     private static Table GatherExisting(Table table, ReadOnlySpan<int> rows)
     {
         var columns = new Column[table.ColumnCount];
-        for (var c = 0; c < columns.Length; c++) columns[c] = table.Columns[c].Gather(rows);
+        for (var c = 0; c < columns.Length; c++) columns[c] = Gatherer.Gather(table.Columns[c], rows);
         return new Table(table.Names, columns, rows.Length);
     }
 }

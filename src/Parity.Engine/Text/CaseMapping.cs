@@ -76,7 +76,7 @@ public static class CaseMapping
             var b = utf8[i];
             if (b < 0x80)
             {
-                dst[w++] = upper ? (byte)(b - 'a' < 26u ? b - 32 : b) : (byte)(b - 'A' < 26u ? b + 32 : b);
+                dst[w++] = upper ? (byte)((uint)(b - 'a') < 26u ? b - 32 : b) : (byte)((uint)(b - 'A') < 26u ? b + 32 : b);
                 i++;
                 continue;
             }

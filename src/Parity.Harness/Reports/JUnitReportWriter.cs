@@ -11,7 +11,7 @@ namespace Parity.Harness.Reports;
 /// than a checkpoint (writes, warnings, errors), and a <c>golden</c> case when a golden mismatch has no
 /// checkpoint. A case fails (one <c>failure</c> element listing every failing finding) when it has a new or
 /// changed finding or a golden mismatch; accepted and resolved findings go to <c>system-out</c>. Values are
-/// made visible (control characters as <c>\n</c>, <c>\u{XXXX}</c>) and characters XML 1.0 cannot carry are
+/// made visible (control characters as <c>\n</c>, <c>\u{X}</c>) and characters XML 1.0 cannot carry are
 /// replaced the same way; the XML writer escapes markup.
 /// </summary>
 public sealed class JUnitReportWriter : IReportWriter
@@ -70,7 +70,7 @@ public sealed class JUnitReportWriter : IReportWriter
         foreach (var c in cases)
             if (c.Failing.Count > 0) failing++;
         x.WriteStartElement("testsuite");
-        x.WriteAttributeString("name", X(script.Script));
+        x.WriteAttributeString("name", X(SafeText.Visible(script.Script)));
         x.WriteAttributeString("tests", ReportFacts.Int(cases.Count));
         x.WriteAttributeString("failures", ReportFacts.Int(failing));
         x.WriteAttributeString("errors", "0");
@@ -78,13 +78,13 @@ public sealed class JUnitReportWriter : IReportWriter
         x.WriteStartElement("properties");
         x.WriteStartElement("property");
         x.WriteAttributeString("name", "modes");
-        x.WriteAttributeString("value", X(string.Join(",", script.Modes)));
+        x.WriteAttributeString("value", X(SafeText.Visible(string.Join(",", script.Modes))));
         x.WriteEndElement();
         x.WriteEndElement();
         foreach (var c in cases)
         {
             x.WriteStartElement("testcase");
-            x.WriteAttributeString("classname", X(script.Script));
+            x.WriteAttributeString("classname", X(SafeText.Visible(script.Script)));
             x.WriteAttributeString("name", X(c.Name));
             if (c.Failing.Count > 0)
             {
@@ -113,7 +113,7 @@ public sealed class JUnitReportWriter : IReportWriter
         foreach (var cp in script.Checkpoints)
         {
             if (byLabel.ContainsKey(cp.Label)) continue;
-            var tc = new TestCase("checkpoint " + cp.Label);
+            var tc = new TestCase("checkpoint " + SafeText.Visible(cp.Label));
             byLabel.Add(cp.Label, tc);
             cases.Add(tc);
         }
@@ -127,7 +127,7 @@ public sealed class JUnitReportWriter : IReportWriter
             if (f.Checkpoint is not null && !byLabel.TryGetValue(f.Checkpoint, out tc))
             {
                 // A finding at a checkpoint the summary does not list (a mode never reached it): its own case.
-                tc = new TestCase("checkpoint " + f.Checkpoint);
+                tc = new TestCase("checkpoint " + SafeText.Visible(f.Checkpoint));
                 byLabel.Add(f.Checkpoint, tc);
                 cases.Insert(cases.IndexOf(statements), tc);
             }

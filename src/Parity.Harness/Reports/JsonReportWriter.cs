@@ -1,5 +1,4 @@
 using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using Parity.Harness.Findings;
 using Parity.Harness.Reports.Internal;
@@ -23,7 +22,7 @@ public sealed class JsonReportWriter : IReportWriter
     public string Render(GateReport report)
     {
         using var stream = new MemoryStream();
-        var options = new JsonWriterOptions { Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping, Indented = true };
+        var options = new JsonWriterOptions { Encoder = ReadableJsonEncoder.Instance, Indented = true };
         using (var w = new Utf8JsonWriter(stream, options))
         {
             w.WriteStartObject();

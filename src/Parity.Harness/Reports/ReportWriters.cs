@@ -22,7 +22,7 @@ public static class ReportWriters
                 var name = part.ToLowerInvariant();
                 if (!seen.Add(name)) continue;
                 writers.Add(CreateOne(name) ?? throw new ArgumentException(
-                    "unknown report format '" + Internal.SafeText.Visible(part) + "'; valid: " + string.Join(", ", Formats), nameof(formats)));
+                    "unknown report format '" + Internal.SafeText.Visible(part) + "'; valid: " + string.Join(", ", Formats)));
             }
         }
         return writers;

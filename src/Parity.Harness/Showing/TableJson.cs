@@ -1,4 +1,3 @@
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using Parity.Engine.Frames;
 using Parity.Engine.Values;
@@ -21,7 +20,7 @@ public static class TableJson
     /// </summary>
     public static void Write(string label, string mode, Table table, Stream output)
     {
-        var options = new JsonWriterOptions { Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping, Indented = false };
+        var options = new JsonWriterOptions { Encoder = ReadableJsonEncoder.Instance, Indented = false };
         using (var w = new Utf8JsonWriter(output, options))
         {
             w.WriteStartObject();

@@ -23,6 +23,7 @@ internal sealed class ScriptChecker
     private readonly Dictionary<string, int> _defined = new(StringComparer.Ordinal);
     private readonly Dictionary<string, int> _definedLater = new(StringComparer.Ordinal);
     private readonly Dictionary<string, CheckStatement> _labels = new(StringComparer.Ordinal);
+    private Statement? _statement;
 
     private ScriptChecker(string file, List<Diagnostic> diagnostics)
     {
@@ -30,10 +31,16 @@ internal sealed class ScriptChecker
         _diagnostics = diagnostics;
     }
 
-    /// <summary>Appends the static errors of <paramref name="script"/> to <paramref name="diagnostics"/>.</summary>
-    public static void Check(ScriptNode script, List<Diagnostic> diagnostics)
+    /// <summary>
+    /// Appends the static errors of <paramref name="script"/> to <paramref name="diagnostics"/>. Frames named in
+    /// <paramref name="assumedFrames"/> (defined by statements that had a syntax error) count as defined, so one
+    /// broken <c>load</c> is one error, not one per later use.
+    /// </summary>
+    public static void Check(ScriptNode script, List<Diagnostic> diagnostics, IReadOnlySet<string>? assumedFrames = null)
     {
         var checker = new ScriptChecker(script.File, diagnostics);
+        if (assumedFrames is not null)
+            foreach (var name in assumedFrames) checker._defined.TryAdd(name, 0);
         foreach (var statement in script.Statements)
         {
             var name = statement switch
@@ -49,6 +56,7 @@ internal sealed class ScriptChecker
 
     private void CheckStatement(Statement statement)
     {
+        _statement = statement;
         switch (statement)
         {
             case LoadStatement load:
@@ -83,12 +91,31 @@ internal sealed class ScriptChecker
 
     private void Define(Identifier name) => _defined.TryAdd(name.Name, name.Span.LineNumber);
 
+    /// <summary>A frame must be defined by an earlier load or let; a later definition is named in the message.</summary>
     private void CheckFrame(Identifier frame)
     {
         if (_defined.ContainsKey(frame.Name)) return;
-        var message = _definedLater.TryGetValue(frame.Name, out var line)
-            ? "frame '" + frame.Name + "' is used before it is defined on line " + line.ToString(CultureInfo.InvariantCulture)
-            : "unknown frame '" + frame.Name + "'" + NameSuggester.DidYouMean(frame.Name, _defined.Keys);
+        string message;
+        if (_definedLater.TryGetValue(frame.Name, out var line))
+        {
+            message = line == _statement?.Span.LineNumber
+                ? "frame '" + frame.Name + "' is used in its own definition before it exists"
+                : "frame '" + frame.Name + "' is used before it is defined on line " + line.ToString(CultureInfo.InvariantCulture);
+        }
+        else
+        {
+            message = "unknown frame '" + frame.Name + "'";
+            var candidates = new List<string>(_defined.Keys);
+            candidates.AddRange(_definedLater.Keys);
+            var suggestion = NameSuggester.Suggest(frame.Name, candidates);
+            if (suggestion is not null)
+            {
+                message += _defined.ContainsKey(suggestion)
+                    ? " (did you mean '" + suggestion + "'?)"
+                    : " (did you mean '" + suggestion + "'? it is defined later, on line "
+                        + _definedLater[suggestion].ToString(CultureInfo.InvariantCulture) + ")";
+            }
+        }
         Report(ErrorCodes.UnknownFrame, frame.Span, message);
     }
 
@@ -234,7 +261,7 @@ internal sealed class ScriptChecker
         {
             var extension = Path.GetExtension(load.Path);
             if (extension.Equals(".parquet", StringComparison.OrdinalIgnoreCase)) format = "parquet";
-            else if (extension.Equals(".arrow", StringComparison.OrdinalIgnoreCase)) format = "arrow";
+            else if (extension.ToLowerInvariant() is ".arrow" or ".arrows" or ".ipc" or ".feather") format = "arrow"; // as DataLoader
         }
 
         var seen = new HashSet<string>(StringComparer.OrdinalIgnoreCase);

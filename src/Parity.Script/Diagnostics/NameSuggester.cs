@@ -13,7 +13,7 @@ public static class NameSuggester
     /// string alignment distance (insertions, deletions, substitutions, adjacent swaps) over Unicode code points,
     /// compared case-insensitively; a candidate qualifies within 1 edit for names of up to 3 code points and
     /// within max(2, length / 3) edits otherwise. Ties go to the smaller case-sensitive distance, then to the
-    /// ordinally smaller candidate. A candidate equal to <paramref name="name"/> is never suggested.
+    /// ordinally smaller candidate. When <paramref name="name"/> itself is a candidate there is nothing to suggest.
     /// </summary>
     public static string? Suggest(string name, IEnumerable<string> candidates)
     {
@@ -25,7 +25,8 @@ public static class NameSuggester
         var bestExact = int.MaxValue;
         foreach (var candidate in candidates)
         {
-            if (candidate is null || string.Equals(candidate, name, StringComparison.Ordinal)) continue;
+            if (candidate is null) continue;
+            if (string.Equals(candidate, name, StringComparison.Ordinal)) return null;
             var folded = Distance(target, Lower(candidate));
             if (folded > limit) continue;
             // An edit that rewrites every character of a short name is no suggestion.

@@ -217,7 +217,7 @@ internal sealed class Lexer
         EmitAdvance(unterminated, j - _pos);
     }
 
-    /// <summary><c>digits [. digits] [e [+|-] digits]</c>; letters glued to the end make it malformed.</summary>
+    /// <summary><c>digits [. digits] [e [+|-] digits]</c>; letters, digits or a dot and digit glued to the end make it malformed.</summary>
     private void LexNumber()
     {
         var j = _pos;
@@ -245,7 +245,8 @@ internal sealed class Lexer
         while (j < _text.Length)
         {
             var c = _text[j];
-            if (c == '.' || char.IsAsciiDigit(c))
+            // A dot glues only before a digit: "1.2.3" is malformed, "(tickets take 2).fare" is not.
+            if (char.IsAsciiDigit(c) || (c == '.' && j + 1 < _text.Length && char.IsAsciiDigit(_text[j + 1])))
             {
                 j++;
                 glued = true;

@@ -21,8 +21,10 @@ internal sealed partial class Parser
     private readonly List<Token> _tokens;
     private readonly List<Diagnostic> _diagnostics;
     private readonly Dictionary<Expr, int> _depths = new(ReferenceEqualityComparer.Instance);
+    private readonly HashSet<string> _brokenDefinitions = new(StringComparer.Ordinal);
     private int _index;
     private int _nesting;
+    private string? _definingName;
 
     private Parser(string text, string file, List<Diagnostic> diagnostics)
     {
@@ -32,9 +34,18 @@ internal sealed partial class Parser
         _diagnostics = diagnostics;
     }
 
-    /// <summary>Parses <paramref name="text"/>; syntax errors are appended to <paramref name="diagnostics"/>.</summary>
-    public static ScriptNode Parse(string text, string file, List<Diagnostic> diagnostics) =>
-        new Parser(text, file, diagnostics).ParseScript();
+    /// <summary>
+    /// Parses <paramref name="text"/>; syntax errors are appended to <paramref name="diagnostics"/>.
+    /// <paramref name="brokenDefinitions"/> gets the frame names of <c>load</c> and <c>let</c> statements that
+    /// failed after their name, so the checker does not report every later use of them as unknown.
+    /// </summary>
+    public static ScriptNode Parse(string text, string file, List<Diagnostic> diagnostics, out IReadOnlySet<string> brokenDefinitions)
+    {
+        var parser = new Parser(text, file, diagnostics);
+        var script = parser.ParseScript();
+        brokenDefinitions = parser._brokenDefinitions;
+        return script;
+    }
 
     private Token Current => _tokens[_index];
 
@@ -52,17 +63,21 @@ internal sealed partial class Parser
                 _index++;
                 continue;
             }
+            _definingName = null;
             try
             {
-                statements.Add(ParseStatement());
+                var statement = ParseStatement();
                 if (!AtLineEnd) throw Expected("end of line");
+                statements.Add(statement);
             }
             catch (SyntaxFailure failure)
             {
                 _diagnostics.Add(failure.Diagnostic);
+                if (_definingName is not null) _brokenDefinitions.Add(_definingName);
                 while (!AtLineEnd) _index++;
             }
             _nesting = 0;
+            _depths.Clear();
         }
         return new ScriptNode(_file, statements);
     }
@@ -83,6 +98,7 @@ internal sealed partial class Parser
     {
         var start = Advance();
         var name = ParseName("a frame name");
+        _definingName = name.Name;
         ExpectKeyword("from");
         if (Current.Kind != TokenKind.String) throw Expected("a path in single quotes");
         var pathToken = Advance();
@@ -144,6 +160,7 @@ internal sealed partial class Parser
     {
         var start = Advance();
         var name = ParseName("a frame name");
+        _definingName = name.Name;
         Expect(TokenKind.Equal, "'=' after the frame name");
         var value = ParseDerivation(inParentheses: false);
         return new LetStatement(name, value, SpanFrom(start));
@@ -287,7 +304,10 @@ internal sealed partial class Parser
 
     private string? DescribeBadToken(Token token) => token.Kind switch
     {
-        TokenKind.BadCharacter => "unexpected character " + DescribeCharacter(token.Text(_text)),
+        TokenKind.BadCharacter => "unexpected character " + DescribeCharacter(token.Text(_text))
+            + (token.Text(_text)[0] > 127 && !char.IsWhiteSpace(token.Text(_text)[0])
+                ? " (a name with symbols is written in double quotes, such as \"" + token.Text(_text).ToString() + "\")"
+                : ""),
         TokenKind.UnterminatedString => "unterminated string: a string literal must end with ' on the same line (write '' for a quote inside)",
         TokenKind.UnterminatedName => "unterminated quoted name: a name in double quotes must end with \" on the same line (write \"\" for a quote inside)",
         TokenKind.EmptyName => "empty quoted name \"\"",

@@ -17,8 +17,8 @@ public static class ScriptParser
         ArgumentNullException.ThrowIfNull(text);
         ArgumentNullException.ThrowIfNull(file);
         var diagnostics = new List<Diagnostic>();
-        var script = Parser.Parse(text, file, diagnostics);
-        ScriptChecker.Check(script, diagnostics);
+        var script = Parser.Parse(text, file, diagnostics, out var brokenDefinitions);
+        ScriptChecker.Check(script, diagnostics, brokenDefinitions);
         // Stable sort: diagnostics at one position keep the order they were found in.
         var sorted = diagnostics.OrderBy(d => d.Span.Offset).ToArray();
         return new ParseResult(script, sorted);

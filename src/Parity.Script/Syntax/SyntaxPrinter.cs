@@ -62,7 +62,8 @@ public static class SyntaxPrinter
                 sb.Append('\n');
                 foreach (var option in load.Options)
                 {
-                    sb.Append("  ").Append(option.Span.ToString()).Append(" option ").Append(Name(option.Key)).Append(" = ");
+                    sb.Append("  ").Append(option.Span.ToString()).Append(" option ").Append(option.Key.Name).Append('@')
+                        .Append(option.Key.Span.ToString()).Append(" = ");
                     if (option.IsList) sb.Append('[');
                     for (var i = 0; i < option.Values.Count; i++)
                     {
@@ -79,7 +80,7 @@ public static class SyntaxPrinter
                 break;
             case SetStatement set:
                 sb.Append("set ");
-                if (set.Chain is not null) sb.Append('(').Append(Name(set.Chain.Source)).Append(')');
+                if (set.Chain is not null) sb.Append('(').Append(Name(set.Chain.Source)).Append(set.Chain.Clauses.Count > 0 ? " ...)" : ")");
                 else if (set.Frame is not null) sb.Append(Name(set.Frame));
                 sb.Append('.').Append(Name(set.Column)).Append('\n');
                 if (set.Chain is not null)

@@ -215,6 +215,8 @@ internal static class ArrowSourceReader
         var n = a.Length;
         var offsetBytes = a.ValueOffsetsBuffer.Memory;
         if ((long)(a.Offset + n + 1) * 4 > offsetBytes.Length) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets buffer too short", 0, col);
+        if (a.NullCount > 0 && !a.NullBitmapBuffer.IsEmpty && ((a.Offset + n + 7) >> 3) > a.NullBitmapBuffer.Length)
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': validity bitmap shorter than the array", 0, col);
         var offsets = a.ValueOffsets;
         var dataLength = a.ValueBuffer.Length;
         var prev = offsets[0];

@@ -24,6 +24,10 @@ internal sealed class CsvColumnBuilder
     private int _nulls;
     private bool _canInt = true, _canFloat = true, _canBool = true, _canTime = true;
 
+    // Values parsed while inference still allows their kind, so Finish does not parse the text again.
+    private long[]? _ints = new long[65];
+    private double[]? _floats;
+
     public CsvColumnBuilder(string name)
     {
         Name = name;
@@ -59,20 +63,62 @@ internal sealed class CsvColumnBuilder
         _offsets[_count] = (int)_bytes;
     }
 
+    // A value that parses as a number can be neither a bool nor a timestamp (and an int is also a float),
+    // so each value rules out the kinds it cannot be and the column keeps the first kind all values fit.
     private void Infer(ReadOnlySpan<char> v)
     {
-        if (_canInt && !long.TryParse(v, IntegerStyle, CultureInfo.InvariantCulture, out _)) _canInt = false;
-        if (_canInt) return;
-        if (_canFloat && !double.TryParse(v, FloatStyle, CultureInfo.InvariantCulture, out _)) _canFloat = false;
-        if (_canFloat) return;
-        if (_canBool && !(v.Equals("true", StringComparison.OrdinalIgnoreCase) || v.Equals("false", StringComparison.OrdinalIgnoreCase))) _canBool = false;
-        if (_canBool) return;
+        if (_canInt)
+        {
+            if (long.TryParse(v, IntegerStyle, CultureInfo.InvariantCulture, out var l))
+            {
+                EnsureSlot();
+                _ints![_count] = l;
+                _canBool = _canTime = false;
+                return;
+            }
+            _canInt = false;
+            _ints = null;
+            if (_canFloat) FloatsFromText();
+        }
+        if (_canFloat)
+        {
+            if (double.TryParse(v, FloatStyle, CultureInfo.InvariantCulture, out var d))
+            {
+                EnsureSlot();
+                _floats![_count] = d;
+                _canBool = _canTime = false;
+                return;
+            }
+            _canFloat = false;
+            _floats = null;
+        }
+        if (_canBool && (v.Equals("true", StringComparison.OrdinalIgnoreCase) || v.Equals("false", StringComparison.OrdinalIgnoreCase)))
+        {
+            _canTime = false;
+            return;
+        }
+        _canBool = false;
         if (_canTime && !Iso8601.TryParse(v, out _)) _canTime = false;
     }
 
+    // The column stopped being int64: parse the cells so far from their text (exact, unlike a long-to-double cast above 2^53).
+    private void FloatsFromText()
+    {
+        _floats = new double[_offsets.Length];
+        for (var i = 0; i < _count; i++)
+            _floats[i] = IsValidSoFar(i) ? double.Parse(Cell(i), FloatStyle, CultureInfo.InvariantCulture) : double.NaN;
+    }
+
+    private bool IsValidSoFar(int i) => (_valid[i >> 3] & (1 << (i & 7))) != 0;
+
     private void EnsureSlot()
     {
-        if (_count + 2 > _offsets.Length) System.Array.Resize(ref _offsets, _offsets.Length * 2);
+        if (_count + 2 > _offsets.Length)
+        {
+            System.Array.Resize(ref _offsets, _offsets.Length * 2);
+            if (_ints is not null) System.Array.Resize(ref _ints, _offsets.Length);
+            if (_floats is not null) System.Array.Resize(ref _floats, _offsets.Length);
+        }
         if ((_count >> 3) >= _valid.Length) System.Array.Resize(ref _valid, _valid.Length * 2);
     }
 
@@ -88,8 +134,14 @@ internal sealed class CsvColumnBuilder
             nan.AsSpan().Fill(double.NaN);
             return new SourceFloat64(Name, nan, validity);
         }
-        if (n > 0 && _canInt) return new SourceInt64(Name, ParseInts(validity), validity);
-        if (n > 0 && _canFloat) return new SourceFloat64(Name, ParseFloats(validity), validity);
+        if (n > 0 && _canInt) return new SourceInt64(Name, Trim(_ints!, n), validity);
+        if (n > 0 && _canFloat)
+        {
+            var floats = Trim(_floats!, n);
+            if (_nulls > 0)
+                for (var i = 0; i < n; i++) if (!IsValidSoFar(i)) floats[i] = double.NaN;
+            return new SourceFloat64(Name, floats, validity);
+        }
         if (n > 0 && _canBool) return new SourceBool(Name, ParseBools(validity), validity);
         if (n > 0 && _canTime) return new SourceTimestamp(Name, ParseTimes(validity), validity);
         var offsetBytes = new byte[(n + 1) * 4];
@@ -101,20 +153,10 @@ internal sealed class CsvColumnBuilder
 
     private ReadOnlySpan<byte> Cell(int i) => _data.AsSpan(_offsets[i], _offsets[i + 1] - _offsets[i]);
 
-    private long[] ParseInts(Validity validity)
+    private static T[] Trim<T>(T[] values, int n)
     {
-        var result = new long[_count];
-        for (var i = 0; i < result.Length; i++)
-            if (validity.IsValid(i)) result[i] = long.Parse(Cell(i), IntegerStyle, CultureInfo.InvariantCulture);
-        return result;
-    }
-
-    private double[] ParseFloats(Validity validity)
-    {
-        var result = new double[_count];
-        for (var i = 0; i < result.Length; i++)
-            result[i] = validity.IsValid(i) ? double.Parse(Cell(i), FloatStyle, CultureInfo.InvariantCulture) : double.NaN;
-        return result;
+        if (values.Length != n) System.Array.Resize(ref values, n);
+        return values;
     }
 
     private bool[] ParseBools(Validity validity)

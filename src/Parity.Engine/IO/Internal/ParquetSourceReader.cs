@@ -142,12 +142,12 @@ internal static class ParquetSourceReader
             using var rg = reader.OpenRowGroupReader(g);
             var count = checked((int)rg.RowCount);
             var values = new TIn[count];
-            int[]? defs = maxDef > 0 ? new int[count] : null;
+            var defs = new int[count];
             await rg.ReadRawAsync<TIn>(f, values, defs, null).ConfigureAwait(false);
             var k = 0;
             for (var i = 0; i < count; i++, row++)
             {
-                if (defs is null || defs[i] == maxDef)
+                if (maxDef == 0 || defs[i] == maxDef)
                 {
                     result[row] = map(values[k++]);
                     bits[row >> 3] |= (byte)(1 << (row & 7));
@@ -178,12 +178,12 @@ internal static class ParquetSourceReader
             using var rg = reader.OpenRowGroupReader(g);
             var count = checked((int)rg.RowCount);
             var values = new ReadOnlyMemory<byte>[count];
-            int[]? defs = maxDef > 0 ? new int[count] : null;
+            var defs = new int[count];
             await rg.ReadRawAsync<ReadOnlyMemory<byte>>(raw, values, defs, null).ConfigureAwait(false);
             var k = 0;
             for (var i = 0; i < count; i++, row++)
             {
-                if (defs is null || defs[i] == maxDef)
+                if (maxDef == 0 || defs[i] == maxDef)
                 {
                     var v = values[k++].Span;
                     if (!System.Text.Unicode.Utf8.IsValid(v))

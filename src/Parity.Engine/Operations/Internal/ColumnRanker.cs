@@ -116,10 +116,12 @@ internal static class ColumnRanker
             return new KeyRanks(ranks, next, false);
         }
         var map = new LongIdMap();
+        var limit = HashLimit(n);
         for (var i = 0; i < n; i++)
         {
             if (!all && (bits[(off + i) >> 3] & (1 << ((off + i) & 7))) == 0) { ranks[i] = -1; continue; }
             ranks[i] = map.GetOrAdd(values[i]);
+            if (map.Count > limit) return RadixLongs(values, validity, ranks);
         }
         var keys = map.Keys.ToArray();
         var ids = Iota(keys.Length);
@@ -152,10 +154,13 @@ internal static class ColumnRanker
         var ranks = new int[n];
         var map = new LongIdMap();
         var anyNaN = false;
+        var bits = validity.Bits.Span;
+        var off = validity.BitOffset;
+        var limit = HashLimit(n);
         for (var i = 0; i < n; i++)
         {
             var d = values[i];
-            if (!validity.IsValid(i)) { ranks[i] = -1; continue; }
+            if (!ValidBits.IsValid(bits, off, i)) { ranks[i] = -1; continue; }
             if (double.IsNaN(d))
             {
                 if (nanIsMissing) { ranks[i] = -1; continue; }
@@ -164,6 +169,7 @@ internal static class ColumnRanker
                 continue;
             }
             ranks[i] = map.GetOrAdd(KeyBits.OfDouble(d));
+            if (map.Count > limit) return RadixDoubles(values, validity, nanIsMissing, ranks);
         }
         var bitsKeys = map.Keys;
         var keys = new double[bitsKeys.Length];
@@ -239,6 +245,53 @@ internal static class ColumnRanker
             else if (r == int.MinValue) ranks[i] = keys.Length;
         }
         return new KeyRanks(ranks, keys.Length + (anyNaN ? 1 : 0), anyNaN);
+    }
+
+    /// <summary>Distinct values beyond which hashing gives way to a radix sort (nearly every value distinct).</summary>
+    private static int HashLimit(int n) => Math.Max(1 << 16, n >> 4);
+
+    private static KeyRanks RadixLongs(ReadOnlySpan<long> values, Validity validity, int[] ranks)
+    {
+        var n = values.Length;
+        var keys = new ulong[n];
+        var rows = new int[n];
+        var bits = validity.Bits.Span;
+        var off = validity.BitOffset;
+        var m = 0;
+        for (var i = 0; i < n; i++)
+        {
+            if (!ValidBits.IsValid(bits, off, i)) { ranks[i] = -1; continue; }
+            keys[m] = RadixRanks.OfLong(values[i]);
+            rows[m++] = i;
+        }
+        var distinct = RadixRanks.Rank(keys, rows, m, ranks);
+        return new KeyRanks(ranks, distinct, false);
+    }
+
+    private static KeyRanks RadixDoubles(ReadOnlySpan<double> values, Validity validity, bool nanIsMissing, int[] ranks)
+    {
+        var n = values.Length;
+        var keys = new ulong[n];
+        var rows = new int[n];
+        var bits = validity.Bits.Span;
+        var off = validity.BitOffset;
+        var m = 0;
+        var anyNaN = false;
+        for (var i = 0; i < n; i++)
+        {
+            var d = values[i];
+            if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) { ranks[i] = -1; continue; }
+            if (double.IsNaN(d)) { anyNaN = true; ranks[i] = int.MinValue; continue; }
+            keys[m] = RadixRanks.OfDouble(d);
+            rows[m++] = i;
+        }
+        var distinct = RadixRanks.Rank(keys, rows, m, ranks);
+        if (anyNaN)
+        {
+            for (var i = 0; i < n; i++)
+                if (ranks[i] == int.MinValue) ranks[i] = distinct;
+        }
+        return new KeyRanks(ranks, distinct + (anyNaN ? 1 : 0), anyNaN);
     }
 
     internal static int[] Iota(int n)

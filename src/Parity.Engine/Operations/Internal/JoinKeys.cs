@@ -83,11 +83,13 @@ internal static class JoinKeys
             {
                 var span = f.Span;
                 var v = f.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 var nanIsMissing = f.Marker == MissingMarker.Nan;
                 for (var i = 0; i < codes.Length; i++)
                 {
                     var d = span[i];
-                    if (!v.IsValid(i) || (nanIsMissing && double.IsNaN(d))) { codes[i] = -2; continue; }
+                    if (!ValidBits.IsValid(vb, vo, i) || (nanIsMissing && double.IsNaN(d))) { codes[i] = -2; continue; }
                     var key = KeyBits.OfDouble(d);
                     codes[i] = insert ? map.GetOrAdd(key) : map.Find(key);
                 }
@@ -97,9 +99,11 @@ internal static class JoinKeys
             {
                 var span = b.Span;
                 var v = b.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < codes.Length; i++)
                 {
-                    if (!v.IsValid(i)) { codes[i] = -2; continue; }
+                    if (!ValidBits.IsValid(vb, vo, i)) { codes[i] = -2; continue; }
                     var key = span[i] ? 1L : 0L;
                     codes[i] = insert ? map.GetOrAdd(key) : map.Find(key);
                 }
@@ -110,9 +114,11 @@ internal static class JoinKeys
                 var p = (PrimitiveColumn<long>)column;
                 var span = p.Span;
                 var v = p.Validity;
+                var vb = v.Bits.Span;
+                var vo = v.BitOffset;
                 for (var i = 0; i < codes.Length; i++)
                 {
-                    if (!v.IsValid(i)) { codes[i] = -2; continue; }
+                    if (!ValidBits.IsValid(vb, vo, i)) { codes[i] = -2; continue; }
                     var key = asDouble ? KeyBits.OfDouble(span[i]) : span[i];
                     codes[i] = insert ? map.GetOrAdd(key) : map.Find(key);
                 }

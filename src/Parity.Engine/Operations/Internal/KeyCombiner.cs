@@ -38,16 +38,20 @@ internal static class KeyCombiner
                 if (acc[i] >= 0) acc[i] = table[acc[i]] - 1;
             return next;
         }
-        var map = new LongIdMap();
-        var codes = new int[n];
-        for (var i = 0; i < n; i++) codes[i] = acc[i] >= 0 ? map.GetOrAdd(acc[i]) : -1;
-        var keys = map.Keys.ToArray();
-        var ids = ColumnRanker.Iota(keys.Length);
-        Array.Sort(keys, ids);
-        var rankOf = new int[ids.Length];
-        for (var r = 0; r < ids.Length; r++) rankOf[ids[r]] = r;
+        // Sparse keys: a radix sort ranks them without hashing (most combined keys are rare).
+        var keys = new ulong[n];
+        var rows = new int[n];
+        var m = 0;
         for (var i = 0; i < n; i++)
-            if (codes[i] >= 0) acc[i] = rankOf[codes[i]];
-        return ids.Length;
+        {
+            if (acc[i] < 0) continue;
+            keys[m] = (ulong)acc[i];
+            rows[m++] = i;
+        }
+        var ranks = new int[n];
+        var distinct = RadixRanks.Rank(keys, rows, m, ranks);
+        for (var i = 0; i < n; i++)
+            if (acc[i] >= 0) acc[i] = ranks[i];
+        return distinct;
     }
 }

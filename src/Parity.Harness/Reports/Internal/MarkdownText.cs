@@ -7,7 +7,7 @@ namespace Parity.Harness.Reports.Internal;
 /// close one); instead every character Markdown could read as syntax is escaped: <c>&amp;</c>, <c>&lt;</c>,
 /// <c>&gt;</c> as HTML entities (so no tag or entity can form), the other ASCII punctuation that starts
 /// emphasis, links, code, headings, tables, strikethrough or math with a backslash (CommonMark "Backslash
-/// escapes"), control characters and line separators as visible <c>\n</c>/<c>\u{XXXX}</c> text (so a value
+/// escapes"), control characters and line separators as visible <c>\n</c>/<c>\u{X}</c> text (so a value
 /// never breaks a table row), and a second space in a run as <c>&amp;nbsp;</c> (so spacing survives).
 /// </summary>
 internal static class MarkdownText

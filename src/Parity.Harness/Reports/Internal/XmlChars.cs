@@ -7,7 +7,7 @@ namespace Parity.Harness.Reports.Internal;
 /// <summary>
 /// Text that XML 1.0 can carry (XML 1.0 §2.2 "Characters": tab, line feed, carriage return, U+0020–U+D7FF,
 /// U+E000–U+FFFD, and supplementary code points as surrogate pairs). Anything else becomes the visible
-/// escape <c>\u{XXXX}</c>; the XML writer then escapes markup characters.
+/// escape <c>\u{X}</c>; the XML writer then escapes markup characters.
 /// </summary>
 internal static class XmlChars
 {
@@ -30,7 +30,7 @@ internal static class XmlChars
                 continue;
             }
             sb ??= new StringBuilder(s, 0, i, s.Length + 8);
-            sb.Append("\\u{").Append(((int)c).ToString("X4", CultureInfo.InvariantCulture)).Append('}');
+            sb.Append("\\u{").Append(((int)c).ToString("X", CultureInfo.InvariantCulture)).Append('}');
         }
         return sb?.ToString() ?? s;
     }
