@@ -413,8 +413,9 @@ public static class ModeDiffer
             {
                 values ??= ctx.Group(FindingKind.Value, line, label, name);
                 var numeric = anyFloat && a.IsNumber && b.IsNumber;
-                var hint = aliased ? MigrationHints.AliasValue : numeric ? MigrationHints.FloatValue : MigrationHints.OtherValue;
-                values.Add(tolerance > 0 ? "values differ (beyond the float tolerance)" : "values differ", 1, hint, aliased ? 2 : numeric ? 1 : 0);
+                var labels = IsTypeLabel(a) && IsTypeLabel(b);
+                var hint = aliased ? MigrationHints.AliasValue : labels ? MigrationHints.TypeLabelValue : numeric ? MigrationHints.FloatValue : MigrationHints.OtherValue;
+                values.Add(tolerance > 0 ? "values differ (beyond the float tolerance)" : "values differ", 1, hint, aliased ? 3 : labels ? 2 : numeric ? 1 : 0);
                 if (values.WantsSample) values.Sample(r, CellText.Display(a), CellText.Display(b));
                 continue;
             }
@@ -429,6 +430,10 @@ public static class ModeDiffer
             if (missing.WantsSample) missing.Sample(r, CellText.Display(a), CellText.Display(b));
         }
     }
+
+    /// <summary>A string that is a type label of spec §2.1, as type_of(c) gives it.</summary>
+    private static bool IsTypeLabel(Value v) =>
+        v.Kind == ValueKind.String && ColumnTypes.TryParseLabel(v.String, out _);
 
     private static (string Text, string Hint, int Rank) MissingReason(Context ctx, CellDiff d, Value a, Value b) => d switch
     {
