@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Text;
 using Parity.Engine.Errors;
 using Parity.Engine.Modes;
