@@ -54,7 +54,12 @@ public static class CliApp
     private static IEnumerable<Command> CreateCommands(CliContext context)
     {
         // One line per command; keep the order of spec §4.
+        yield return RunCommand.Create(context);
+        yield return CheckCommand.Create(context);
+        yield return AcceptCommand.Create(context);
+        yield return ShowCommand.Create(context);
         yield return InspectCommand.Create(context);
+        yield return MatrixCommand.Create(context);
         yield return FixturesCommand.Create(context);
     }
 }

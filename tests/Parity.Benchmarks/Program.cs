@@ -1,11 +1,18 @@
 using BenchmarkDotNet.Running;
+using Parity.Benchmarks.Quick;
 
 namespace Parity.Benchmarks;
 
 internal static class Program
 {
+    /// <summary>
+    /// <c>quick [FILTER]</c>: the ratio mode (one <c>ratio NAME VALUE</c> line each, then a table);
+    /// anything else goes to BenchmarkDotNet's switcher (<c>--filter *LengthBench*</c>).
+    /// </summary>
     private static int Main(string[] args)
     {
+        if (args.Length > 0 && args[0] == "quick")
+            return QuickRunner.Run(RatioCatalog.All(), Console.Out, args.Length > 1 ? args[1] : null);
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
         return 0;
     }

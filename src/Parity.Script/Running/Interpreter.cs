@@ -1,9 +1,11 @@
+using Parity.Engine.Frames;
 using Parity.Engine.Modes;
+using Parity.Script.Running.Internal;
 using Parity.Script.Syntax;
 
 namespace Parity.Script.Running;
 
-/// <summary>Runs a parsed script in one mode. PENDING: the language issue replaces this body.</summary>
+/// <summary>Runs a parsed script in one mode (spec §2, §3).</summary>
 public static class Interpreter
 {
     /// <summary>
@@ -12,5 +14,9 @@ public static class Interpreter
     /// <see cref="ModeRun.Failure"/>; it is not thrown.
     /// </summary>
     public static ModeRun Run(ScriptNode script, Mode mode, string scriptDirectory, RunOptions options) =>
-        throw new NotImplementedException("pending: interpreter");
+        new ScriptRun(script, mode, scriptDirectory, options, null).Execute();
+
+    /// <summary>Runs with frames bound before the first statement (tests and benchmarks: no files needed).</summary>
+    internal static ModeRun Run(ScriptNode script, Mode mode, IReadOnlyDictionary<string, Table> frames, RunOptions? options = null) =>
+        new ScriptRun(script, mode, Directory.GetCurrentDirectory(), options ?? RunOptions.Default, frames).Execute();
 }

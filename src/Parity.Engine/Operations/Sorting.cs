@@ -1,0 +1,136 @@
+using Parity.Engine.Columns;
+using Parity.Engine.Errors;
+using Parity.Engine.Frames;
+using Parity.Engine.Modes;
+using Parity.Engine.Operations.Internal;
+
+namespace Parity.Engine.Operations;
+
+/// <summary>
+/// Stable multi-key ordering (spec §2.2 "Ordering"). The order, in every mode:
+/// <list type="bullet">
+/// <item>numbers numerically (-0.0 equals 0.0); bools false &lt; true; timestamps by instant;</item>
+/// <item>strings in Unicode code point order (UTF-8 byte order; boxed strings via <see cref="Text.CodePointOrder"/>);</item>
+/// <item>mixed (object) columns by kind first: numbers &lt; bools &lt; strings &lt; timestamps, then by value;</item>
+/// <item>a NaN that is a value (null modes) after every other value but before missing, in both directions;</item>
+/// <item>missing values (any marker) last in both directions;</item>
+/// <item>ties keep input order.</item>
+/// </list>
+/// Each key column is reduced to dense ranks (distinct values hashed from typed buffers, only the distinct
+/// values sorted), the ranks are combined into one integer per row and a counting sort gives the permutation.
+/// </summary>
+public static class Sorting
+{
+    /// <summary>Row indices in sorted order: <c>result[k]</c> is the input row that goes to position k.</summary>
+    public static int[] Permutation(Table table, IReadOnlyList<SortKey> keys)
+    {
+        var n = table.RowCount;
+        if (keys.Count == 0 || n == 0) return ColumnRanker.Iota(n);
+        if (keys.Count == 1)
+        {
+            var only = table.IndexOf(keys[0].Column);
+            if (only >= 0 && TrySingleNumeric(table.Columns[only], keys[0].Descending, out var direct)) return direct;
+        }
+        var acc = new long[n];
+        long card = 1;
+        var sortRanks = new int[n];
+        for (var k = 0; k < keys.Count; k++)
+        {
+            var index = table.IndexOf(keys[k].Column);
+            if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{keys[k].Column}'");
+            var ranks = ColumnRanker.Rank(table.Columns[index]);
+            SortRanks(ranks, keys[k].Descending, sortRanks);
+            KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
+        }
+        if (card > (long)n * 2 + 1024) card = KeyCombiner.Densify(acc, card);
+        return CountingSort(acc, (int)card);
+    }
+
+    /// <summary>Ranks as sort positions: values (reversed when descending), then the NaN value, then missing.</summary>
+    private static void SortRanks(KeyRanks ranks, bool descending, int[] into)
+    {
+        var src = ranks.Ranks;
+        var missing = ranks.ValueCount;
+        var top = ranks.OrdinaryCount - 1;
+        for (var i = 0; i < src.Length; i++)
+        {
+            var r = src[i];
+            into[i] = r < 0 ? missing : descending && r <= top ? top - r : r;
+        }
+    }
+
+    /// <summary>
+    /// One numeric key: a stable radix sort of order-preserving keys (complemented when descending, so ties
+    /// keep input order), then the NaN-value rows, then the missing rows, each in input order.
+    /// </summary>
+    private static bool TrySingleNumeric(Column column, bool descending, out int[] perm)
+    {
+        var n = column.Length;
+        var flip = descending ? ulong.MaxValue : 0UL;
+        int m = 0, nanCount = 0, missingCount = 0;
+        ulong[] keys;
+        int[] rows;
+        int[] tail; // NaN values from the front, missing rows from the back
+        switch (column)
+        {
+            case Int64Column or TimestampColumn:
+            {
+                var p = (PrimitiveColumn<long>)column;
+                var span = p.Span;
+                var bits = p.Validity.Bits.Span;
+                var off = p.Validity.BitOffset;
+                keys = new ulong[n];
+                rows = new int[n];
+                tail = new int[n];
+                for (var i = 0; i < n; i++)
+                {
+                    if (!ValidBits.IsValid(bits, off, i)) { tail[n - 1 - missingCount++] = i; continue; }
+                    keys[m] = RadixRanks.OfLong(span[i]) ^ flip;
+                    rows[m++] = i;
+                }
+                break;
+            }
+            case Float64Column f:
+            {
+                var span = f.Span;
+                var bits = f.Validity.Bits.Span;
+                var off = f.Validity.BitOffset;
+                var nanIsMissing = f.Marker == MissingMarker.Nan;
+                keys = new ulong[n];
+                rows = new int[n];
+                tail = new int[n];
+                for (var i = 0; i < n; i++)
+                {
+                    var d = span[i];
+                    if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) { tail[n - 1 - missingCount++] = i; continue; }
+                    if (double.IsNaN(d)) { tail[nanCount++] = i; continue; }
+                    keys[m] = RadixRanks.OfDouble(d) ^ flip;
+                    rows[m++] = i;
+                }
+                break;
+            }
+            default:
+                perm = [];
+                return false;
+        }
+        RadixRanks.Sort(ref keys, ref rows, m);
+        perm = new int[n];
+        rows.AsSpan(0, m).CopyTo(perm);
+        tail.AsSpan(0, nanCount).CopyTo(perm.AsSpan(m));
+        // Missing rows were written backwards from the end of tail; restore input order.
+        var at = m + nanCount;
+        for (var k = 0; k < missingCount; k++) perm[at + k] = tail[n - 1 - k];
+        return true;
+    }
+
+    /// <summary>Stable: rows with equal keys keep their input order.</summary>
+    private static int[] CountingSort(long[] keys, int card)
+    {
+        var starts = new int[card + 1];
+        for (var i = 0; i < keys.Length; i++) starts[keys[i] + 1]++;
+        for (var k = 0; k < card; k++) starts[k + 1] += starts[k];
+        var perm = new int[keys.Length];
+        for (var i = 0; i < keys.Length; i++) perm[starts[keys[i]]++] = i;
+        return perm;
+    }
+}

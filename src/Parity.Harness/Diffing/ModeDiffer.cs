@@ -1,0 +1,473 @@
+using System.Globalization;
+using Parity.Engine.Columns;
+using Parity.Engine.Errors;
+using Parity.Engine.Frames;
+using Parity.Engine.Values;
+using Parity.Harness.Diffing.Internal;
+using Parity.Harness.Findings;
+using Parity.Harness.Formatting;
+using Parity.Script.Running;
+
+namespace Parity.Harness.Diffing;
+
+/// <summary>
+/// Compares two runs of one script (spec §5): checkpoint by checkpoint, matched by label (<c>shape</c>,
+/// <c>type</c>, <c>value</c>, <c>missing</c>), and statement by statement (<c>alias</c>, <c>warning</c>,
+/// <c>error</c>, and the <c>missing</c> notes of rows dropped by a null condition or a missing group key).
+/// <para>
+/// Rows are aligned by position. When the row counts differ there is no safe alignment (a dropped row
+/// shifts every row after it), so the differ reports one <c>shape</c> finding whose samples start at the
+/// first row where the frames stop agreeing, plus the <c>type</c> findings, and no per-cell findings.
+/// </para>
+/// <para>
+/// A type difference that the modes predict (int64 against float64, object against utf8) is one
+/// <c>type</c> finding; numbers are compared by value across int64 and float64, so equal numbers of a
+/// different type give no <c>value</c> findings.
+/// </para>
+/// </summary>
+public static class ModeDiffer
+{
+    /// <summary>Diffs the first run (the baseline) against every other run; findings in a deterministic order.</summary>
+    public static IReadOnlyList<Finding> CompareAll(IReadOnlyList<ModeRun> runs, string script, DiffOptions options)
+    {
+        var all = new List<Finding>();
+        for (var i = 1; i < runs.Count; i++)
+            all.AddRange(Compare(runs[0], runs[i], script, options));
+        all.Sort(FindingOrder.Instance);
+        return all;
+    }
+
+    public static IReadOnlyList<Finding> Compare(ModeRun a, ModeRun b, string script, DiffOptions options)
+    {
+        var ctx = new Context(a, b, options);
+        CompareStatements(ctx);
+        CompareCheckpoints(ctx);
+        var modes = new[] { a.Mode.Name, b.Mode.Name };
+        var list = new List<Finding>(ctx.Groups.Count);
+        foreach (var g in ctx.Groups.Values)
+            list.Add(g.ToFinding(script, modes, countReasons: g.Kind == FindingKind.Missing));
+        list.Sort(FindingOrder.Instance);
+        return list;
+    }
+
+    private sealed class Context
+    {
+        public Context(ModeRun a, ModeRun b, DiffOptions options)
+        {
+            A = a;
+            B = b;
+            Options = options;
+            NameA = a.Mode.Name;
+            NameB = b.Mode.Name;
+            // Statements at or after the line where a mode stopped were not run by it: not comparable.
+            var la = a.Failure is null ? int.MaxValue : a.Failure.Span.LineNumber;
+            var lb = b.Failure is null ? int.MaxValue : b.Failure.Span.LineNumber;
+            StopLine = Math.Min(la, lb);
+        }
+
+        public ModeRun A { get; }
+
+        public ModeRun B { get; }
+
+        public DiffOptions Options { get; }
+
+        public string NameA { get; }
+
+        public string NameB { get; }
+
+        public int StopLine { get; }
+
+        public Dictionary<string, FindingGroup> Groups { get; } = new(StringComparer.Ordinal);
+
+        /// <summary>Named frames whose aliasing sets differ between the modes (they explain value findings).</summary>
+        public HashSet<string> AliasedFrames { get; } = new(StringComparer.Ordinal);
+
+        public FindingGroup Group(FindingKind kind, int line, string? checkpoint, string? column)
+        {
+            var key = ((int)kind).ToString(CultureInfo.InvariantCulture) + "\u0001" + (checkpoint ?? "\u0002" + line.ToString(CultureInfo.InvariantCulture)) + "\u0001" + (column ?? "\u0002");
+            if (!Groups.TryGetValue(key, out var g))
+            {
+                g = new FindingGroup(kind, line, checkpoint, column, Options.MaxSamples);
+                Groups.Add(key, g);
+            }
+            return g;
+        }
+    }
+
+    // ---- statements -------------------------------------------------------------------------------
+
+    private static void CompareStatements(Context ctx)
+    {
+        CompareFailures(ctx);
+        CompareWrites(ctx);
+        CompareWarnings(ctx);
+        CompareNotes(ctx);
+    }
+
+    private static void CompareFailures(Context ctx)
+    {
+        var fa = ctx.A.Failure;
+        var fb = ctx.B.Failure;
+        if ((fa is null) == (fb is null)) return; // neither failed, or both did (the runner fails the script)
+        var failed = fa is not null ? ctx.A : ctx.B;
+        var other = fa is not null ? ctx.B : ctx.A;
+        var f = failed.Failure!;
+        var missed = new List<string>();
+        foreach (var c in other.Checkpoints)
+            if (failed.FindCheckpoint(c.Label) is null) missed.Add(CellText.Quote(c.Label));
+        var reason = f.Code + " in " + failed.Mode.Name + " only: " + CellText.Safe(f.Message)
+            + (missed.Count == 0 ? "" : "; checkpoints " + failed.Mode.Name + " never reached: " + string.Join(", ", missed));
+        var g = ctx.Group(FindingKind.Error, f.Span.LineNumber, null, null);
+        g.Add(reason, 1, ErrorHint(f.Code), 0);
+        var failedText = "error " + f.Code + ": " + CellText.Safe(f.Message);
+        var otherText = "ran on";
+        g.Sample(null, failed == ctx.A ? [failedText, otherText] : [otherText, failedText]);
+    }
+
+    private static string ErrorHint(string code) => code switch
+    {
+        ErrorCodes.Cast => MigrationHints.CastError,
+        ErrorCodes.TypeWrite or ErrorCodes.Type => MigrationHints.TypeWriteError,
+        ErrorCodes.MaskMissing => MigrationHints.MaskError,
+        ErrorCodes.AggType => MigrationHints.AggTypeError,
+        _ => MigrationHints.OtherError,
+    };
+
+    private static void CompareWrites(Context ctx)
+    {
+        var byPlace = new Dictionary<(int, int), WriteRecord>();
+        foreach (var w in ctx.B.Writes) byPlace.TryAdd((w.Line, w.Column), w);
+        foreach (var wa in ctx.A.Writes)
+        {
+            if (wa.Line >= ctx.StopLine) continue;
+            if (!byPlace.TryGetValue((wa.Line, wa.Column), out var wb)) continue;
+            var sa = Sorted(wa.ChangedFrames);
+            var sb = Sorted(wb.ChangedFrames);
+            if (SameSet(sa, sb)) continue;
+            foreach (var n in sa) if (!sb.Contains(n)) ctx.AliasedFrames.Add(n);
+            foreach (var n in sb) if (!sa.Contains(n)) ctx.AliasedFrames.Add(n);
+            var chained = wa.Target.StartsWith('(') || HasWarning(ctx.A, wa.Line, ErrorCodes.ChainedWrite) || HasWarning(ctx.B, wa.Line, ErrorCodes.ChainedWrite);
+            var maybeCopy = HasWarning(ctx.A, wa.Line, ErrorCodes.MaybeCopy) || HasWarning(ctx.B, wa.Line, ErrorCodes.MaybeCopy);
+            var hint = chained ? MigrationHints.ChainedWrite : maybeCopy ? MigrationHints.MaybeCopy : MigrationHints.ViewWrite;
+            var g = ctx.Group(FindingKind.Alias, wa.Line, null, null);
+            g.Add("the write to " + CellText.Safe(wa.Target) + " changed " + SetText(sa) + " in " + ctx.NameA + " and " + SetText(sb) + " in " + ctx.NameB, 1, hint, 0);
+            g.Sample(null, SetText(sa), SetText(sb));
+        }
+    }
+
+    private static void CompareWarnings(Context ctx)
+    {
+        OneSidedWarnings(ctx, ctx.A, ctx.B, first: true);
+        OneSidedWarnings(ctx, ctx.B, ctx.A, first: false);
+    }
+
+    private static void OneSidedWarnings(Context ctx, ModeRun has, ModeRun lacks, bool first)
+    {
+        foreach (var w in has.Warnings)
+        {
+            if (w.Line >= ctx.StopLine) continue;
+            var matched = false;
+            foreach (var o in lacks.Warnings)
+            {
+                if (o.Line == w.Line && o.Column == w.Column && string.Equals(o.Code, w.Code, StringComparison.Ordinal)) { matched = true; break; }
+            }
+            if (matched) continue;
+            var hint = w.Code switch
+            {
+                ErrorCodes.ChainedWrite => MigrationHints.ChainedWrite,
+                ErrorCodes.MaybeCopy => MigrationHints.MaybeCopy,
+                _ => MigrationHints.Warning,
+            };
+            var g = ctx.Group(FindingKind.Warning, w.Line, null, null);
+            g.Add(w.Code + " in " + has.Mode.Name + " only: " + CellText.Safe(w.Message), 1, hint, 0);
+            var hasText = w.Code + "; reached " + SetText(Sorted(w.ReachedFrames));
+            var otherWrite = FindWrite(lacks, w.Line);
+            var lacksText = "no warning" + (otherWrite is null ? "" : "; reached " + SetText(Sorted(otherWrite.ChangedFrames)));
+            g.Sample(null, first ? [hasText, lacksText] : [lacksText, hasText]);
+        }
+    }
+
+    private static void CompareNotes(Context ctx)
+    {
+        var totals = new SortedDictionary<(int Line, string Kind), (long A, long B)>(NoteOrder.Instance);
+        foreach (var n in ctx.A.Notes)
+        {
+            if (n.Line >= ctx.StopLine) continue;
+            totals.TryGetValue((n.Line, n.Kind), out var t);
+            totals[(n.Line, n.Kind)] = (t.A + n.Count, t.B);
+        }
+        foreach (var n in ctx.B.Notes)
+        {
+            if (n.Line >= ctx.StopLine) continue;
+            totals.TryGetValue((n.Line, n.Kind), out var t);
+            totals[(n.Line, n.Kind)] = (t.A, t.B + n.Count);
+        }
+        foreach (var ((line, kind), (ca, cb)) in totals)
+        {
+            if (ca == cb) continue;
+            var what = kind == RunNote.NullCondition ? "rows dropped because the condition was null"
+                : kind == RunNote.MissingGroupKey ? "rows dropped from grouping because the key was missing"
+                : "rows counted by note " + CellText.Safe(kind);
+            var hint = kind == RunNote.MissingGroupKey ? MigrationHints.MissingGroupKey : MigrationHints.NullCondition;
+            var g = ctx.Group(FindingKind.Missing, line, null, null);
+            g.Add(what + ": " + Num(ca) + " in " + ctx.NameA + ", " + Num(cb) + " in " + ctx.NameB, Math.Abs(ca - cb), hint, kind == RunNote.NullCondition ? 1 : 0);
+            g.Sample(null, Num(ca) + " rows", Num(cb) + " rows");
+        }
+    }
+
+    // ---- checkpoints ------------------------------------------------------------------------------
+
+    private static void CompareCheckpoints(Context ctx)
+    {
+        foreach (var ca in ctx.A.Checkpoints)
+        {
+            var cb = ctx.B.FindCheckpoint(ca.Label);
+            if (cb is null)
+            {
+                if (ctx.B.Failure is null) OnlyIn(ctx, ca, ctx.NameA, ctx.NameB);
+                continue;
+            }
+            CompareTables(ctx, ca, cb);
+        }
+        if (ctx.A.Failure is not null) return;
+        foreach (var cb in ctx.B.Checkpoints)
+            if (ctx.A.FindCheckpoint(cb.Label) is null) OnlyIn(ctx, cb, ctx.NameB, ctx.NameA);
+    }
+
+    private static void OnlyIn(Context ctx, CheckpointResult c, string has, string lacks)
+    {
+        var g = ctx.Group(FindingKind.Shape, c.Line, c.Label, null);
+        g.Add("checkpoint reached in " + has + " but not in " + lacks, 1, MigrationHints.Checkpoint, 0);
+    }
+
+    private static void CompareTables(Context ctx, CheckpointResult ca, CheckpointResult cb)
+    {
+        Table ta = ca.Table, tb = cb.Table;
+        var label = ca.Label;
+        var line = ca.Line;
+
+        // Columns present in one mode only, then the relative order of the shared ones.
+        var commonA = new List<string>();
+        foreach (var n in ta.Names)
+        {
+            if (tb.IndexOf(n) >= 0) { commonA.Add(n); continue; }
+            var g = ctx.Group(FindingKind.Shape, line, label, n);
+            g.Add("column only in " + ctx.NameA, 1, MigrationHints.ColumnSet, 0);
+        }
+        var commonB = new List<string>();
+        foreach (var n in tb.Names)
+        {
+            if (ta.IndexOf(n) >= 0) { commonB.Add(n); continue; }
+            var g = ctx.Group(FindingKind.Shape, line, label, n);
+            g.Add("column only in " + ctx.NameB, 1, MigrationHints.ColumnSet, 0);
+        }
+        for (var i = 0; i < commonA.Count; i++)
+        {
+            if (string.Equals(commonA[i], commonB[i], StringComparison.Ordinal)) continue;
+            var g = ctx.Group(FindingKind.Shape, line, label, commonA[i]);
+            g.Add("column at position " + Num(ta.IndexOf(commonA[i]) + 1) + " in " + ctx.NameA + " and " + Num(tb.IndexOf(commonA[i]) + 1) + " in " + ctx.NameB, 1, MigrationHints.ColumnOrder, 0);
+        }
+
+        // Type labels per shared column.
+        foreach (var n in commonA)
+        {
+            var colA = ta[n];
+            var colB = tb[n];
+            if (string.Equals(colA.TypeLabel, colB.TypeLabel, StringComparison.Ordinal)) continue;
+            var g = ctx.Group(FindingKind.Type, line, label, n);
+            g.Add("type " + colA.TypeLabel + " in " + ctx.NameA + ", " + colB.TypeLabel + " in " + ctx.NameB, 1, TypeHint(colA, colB), 0);
+            var rows = Math.Min(ta.RowCount, tb.RowCount);
+            for (var r = 0; r < rows && g.WantsSample; r++)
+            {
+                var da = CellText.Display(colA.GetValue(r));
+                var db = CellText.Display(colB.GetValue(r));
+                if (!string.Equals(da, db, StringComparison.Ordinal)) g.Sample(r, da, db);
+            }
+        }
+
+        if (ta.RowCount != tb.RowCount)
+        {
+            RowCountFinding(ctx, ca, cb, commonA);
+            return;
+        }
+
+        var aliased = ctx.AliasedFrames.Contains(ca.FrameName) || ctx.AliasedFrames.Contains(cb.FrameName);
+        foreach (var n in commonA)
+            CompareColumn(ctx, line, label, n, ta[n], tb[n], ta.RowCount, aliased);
+    }
+
+    private static void RowCountFinding(Context ctx, CheckpointResult ca, CheckpointResult cb, List<string> common)
+    {
+        Table ta = ca.Table, tb = cb.Table;
+        var rows = Math.Min(ta.RowCount, tb.RowCount);
+        var first = rows;
+        for (var r = 0; r < rows && first == rows; r++)
+        {
+            foreach (var n in common)
+            {
+                var d = Classify(ta[n].GetValue(r), tb[n].GetValue(r), ctx.Options.FloatTolerance);
+                if (d is CellDiff.Same or CellDiff.MarkerKind) continue;
+                first = r;
+                break;
+            }
+        }
+        var g = ctx.Group(FindingKind.Shape, ca.Line, ca.Label, null);
+        var reason = "rows: " + Num(ta.RowCount) + " in " + ctx.NameA + ", " + Num(tb.RowCount) + " in " + ctx.NameB
+            + "; the first " + Num(first) + " rows agree";
+        g.Add(reason, Math.Abs((long)ta.RowCount - tb.RowCount), MigrationHints.RowCount, 0);
+        for (var r = first; r < Math.Max(ta.RowCount, tb.RowCount) && g.WantsSample; r++)
+            g.Sample(r, RowText(ta, common, r), RowText(tb, common, r));
+    }
+
+    private static string RowText(Table t, List<string> columns, int row)
+    {
+        if (row >= t.RowCount) return "(no row)";
+        var cells = new string[columns.Count];
+        for (var i = 0; i < cells.Length; i++) cells[i] = CellText.Display(t[columns[i]].GetValue(row));
+        return string.Join(", ", cells);
+    }
+
+    private static string TypeHint(Column a, Column b)
+    {
+        var pair = (a.Type, b.Type);
+        if (pair is (ColumnType.Int64, ColumnType.Float64) or (ColumnType.Float64, ColumnType.Int64)) return MigrationHints.IntToFloat;
+        if (pair is (ColumnType.Bool, ColumnType.Object) or (ColumnType.Object, ColumnType.Bool)) return MigrationHints.BoolToObject;
+        if (pair is (ColumnType.Object, ColumnType.Utf8) or (ColumnType.Utf8, ColumnType.Object))
+        {
+            var obj = (a as ObjectColumn) ?? (b as ObjectColumn);
+            return obj is null || obj.IsStringsOnly ? MigrationHints.StringStorage : MigrationHints.MixedColumn;
+        }
+        return MigrationHints.OtherType;
+    }
+
+    private enum CellDiff
+    {
+        Same,
+        Value,
+        MarkerKind,
+        NanText,
+        ValueVersusMissing,
+    }
+
+    private static CellDiff Classify(Value a, Value b, double tolerance)
+    {
+        if (a.IsMissing && b.IsMissing) return a.Missing == b.Missing ? CellDiff.Same : CellDiff.MarkerKind;
+        if (a.IsMissing || b.IsMissing)
+        {
+            var present = a.IsMissing ? b : a;
+            return present.Kind == ValueKind.String && string.Equals(present.String, "nan", StringComparison.Ordinal)
+                ? CellDiff.NanText
+                : CellDiff.ValueVersusMissing;
+        }
+        if (a.IsNumber && b.IsNumber) return NumbersEqual(a, b, tolerance) ? CellDiff.Same : CellDiff.Value;
+        return a.Equals(b) ? CellDiff.Same : CellDiff.Value;
+    }
+
+    private static bool NumbersEqual(Value a, Value b, double tolerance)
+    {
+        if (a.Kind == ValueKind.Int64 && b.Kind == ValueKind.Int64) return a.Int64 == b.Int64;
+        if (a.Kind == ValueKind.Int64 && tolerance == 0) return LongEqualsDouble(a.Int64, b.Float64);
+        if (b.Kind == ValueKind.Int64 && tolerance == 0) return LongEqualsDouble(b.Int64, a.Float64);
+        double x = a.AsDouble, y = b.AsDouble;
+        if (double.IsNaN(x) || double.IsNaN(y)) return double.IsNaN(x) && double.IsNaN(y);
+        if (x == y) return true;
+        return tolerance > 0 && double.IsFinite(x) && double.IsFinite(y) && Math.Abs(x - y) <= tolerance;
+    }
+
+    /// <summary>Exact comparison: a double equals a long only when it is that integer (no rounding of the long).</summary>
+    private static bool LongEqualsDouble(long l, double d) =>
+        d >= -9.2233720368547758E18 && d < 9.2233720368547758E18 && Math.Floor(d) == d && (long)d == l;
+
+    private static void CompareColumn(Context ctx, int line, string label, string name, Column ca, Column cb, int rows, bool aliased)
+    {
+        FindingGroup? values = null;
+        FindingGroup? missing = null;
+        var tolerance = ctx.Options.FloatTolerance;
+        var anyFloat = ca.Type == ColumnType.Float64 || cb.Type == ColumnType.Float64;
+        for (var r = 0; r < rows; r++)
+        {
+            var a = ca.GetValue(r);
+            var b = cb.GetValue(r);
+            var d = Classify(a, b, tolerance);
+            if (d == CellDiff.Same) continue;
+            if (d == CellDiff.Value)
+            {
+                values ??= ctx.Group(FindingKind.Value, line, label, name);
+                var hint = aliased ? MigrationHints.AliasValue : anyFloat && a.IsNumber && b.IsNumber ? MigrationHints.FloatValue : MigrationHints.OtherValue;
+                values.Add("values differ" + (tolerance > 0 ? " (beyond the float tolerance)" : ""), 1, hint, aliased ? 2 : anyFloat ? 1 : 0);
+                if (values.WantsSample) values.Sample(r, CellText.Display(a), CellText.Display(b));
+                continue;
+            }
+            missing ??= ctx.Group(FindingKind.Missing, line, label, name);
+            switch (d)
+            {
+                case CellDiff.MarkerKind:
+                    missing.Add(ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.MarkerKind, 0);
+                    break;
+                case CellDiff.NanText:
+                    missing.Add(a.IsMissing
+                        ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has the text 'nan'"
+                        : "the text 'nan' in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.NanText, 3);
+                    break;
+                default:
+                    missing.Add(a.IsMissing
+                        ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has a value"
+                        : "a value in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.ValueVersusMissing, 2);
+                    break;
+            }
+            if (missing.WantsSample) missing.Sample(r, CellText.Display(a), CellText.Display(b));
+        }
+    }
+
+    // ---- helpers ----------------------------------------------------------------------------------
+
+    private static bool HasWarning(ModeRun run, int line, string code)
+    {
+        foreach (var w in run.Warnings)
+            if (w.Line == line && string.Equals(w.Code, code, StringComparison.Ordinal)) return true;
+        return false;
+    }
+
+    private static WriteRecord? FindWrite(ModeRun run, int line)
+    {
+        foreach (var w in run.Writes)
+            if (w.Line == line) return w;
+        return null;
+    }
+
+    private static List<string> Sorted(IReadOnlyList<string> names)
+    {
+        var list = new List<string>(names);
+        list.Sort(StringComparer.Ordinal);
+        return list;
+    }
+
+    private static bool SameSet(List<string> a, List<string> b)
+    {
+        if (a.Count != b.Count) return false;
+        for (var i = 0; i < a.Count; i++)
+            if (!string.Equals(a[i], b[i], StringComparison.Ordinal)) return false;
+        return true;
+    }
+
+    private static string SetText(List<string> names)
+    {
+        if (names.Count == 0) return "{}";
+        var quoted = new string[names.Count];
+        for (var i = 0; i < quoted.Length; i++) quoted[i] = CellText.Quote(names[i]);
+        return "{" + string.Join(", ", quoted) + "}";
+    }
+
+    private static string Num(long n) => n.ToString(CultureInfo.InvariantCulture);
+
+    private sealed class NoteOrder : IComparer<(int Line, string Kind)>
+    {
+        public static NoteOrder Instance { get; } = new();
+
+        public int Compare((int Line, string Kind) x, (int Line, string Kind) y)
+        {
+            var c = x.Line.CompareTo(y.Line);
+            return c != 0 ? c : string.CompareOrdinal(x.Kind, y.Kind);
+        }
+    }
+}

@@ -1,0 +1,373 @@
+using System.Text;
+using Parity.Engine.Errors;
+using Parity.Engine.Modes;
+using Parity.Harness.Findings;
+using Parity.Harness.Formatting;
+using Parity.Script.Running;
+
+namespace Parity.Harness.Golden;
+
+/// <summary>
+/// The golden store (spec §5, docs/golden-format.md): one folder per script under <see cref="Root"/>, one
+/// sub-folder per mode with a run file and one text file per checkpoint (plus an Arrow IPC file for frames
+/// above <see cref="RowLimit"/> rows), and the accepted cross-mode findings.
+/// <para>
+/// An accept renders every file in memory, writes them into a fresh staging folder, then swaps it in with
+/// two renames (old folder aside, staging folder in place, old folder deleted). A process killed at any
+/// point leaves the previous folder or the new one: readers fall back to the set-aside folder when the
+/// swap stopped between the renames, and the next accept finishes the recovery. Accepts hold
+/// <see cref="GoldenLock"/>.
+/// </para>
+/// </summary>
+public sealed class GoldenStore
+{
+    public const int DefaultRowLimit = 1000;
+    private const string NewSuffix = "~~accept-new";
+    private const string OldSuffix = "~~accept-old";
+    private static readonly UTF8Encoding Utf8 = new(false);
+
+    public GoldenStore(string root, string displayRoot, int rowLimit = DefaultRowLimit)
+    {
+        Root = Path.GetFullPath(root);
+        DisplayRoot = displayRoot.Replace('\\', '/').TrimEnd('/');
+        RowLimit = rowLimit;
+    }
+
+    public string Root { get; }
+
+    /// <summary>The root as the user wrote it, for messages.</summary>
+    public string DisplayRoot { get; }
+
+    public int RowLimit { get; }
+
+    /// <summary>Test hook: called after each staged file is written (a throw simulates a crash mid-accept).</summary>
+    internal Action<string>? AfterStagedFile { get; set; }
+
+    /// <summary>Test hook: called between the two renames of the swap.</summary>
+    internal Action? BetweenRenames { get; set; }
+
+    public string ScriptFolder(string script) => Path.Combine(Root, GoldenNames.ScriptFolder(script));
+
+    private string Display(string script, string relative) =>
+        DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + "/" + relative;
+
+    /// <summary>The folder to read, or null: the script folder, or its set-aside copy when a swap was cut short.</summary>
+    private string? ReadableFolder(string script)
+    {
+        var dir = ScriptFolder(script);
+        if (Directory.Exists(dir)) return dir;
+        var old = dir + OldSuffix;
+        return Directory.Exists(old) ? old : null;
+    }
+
+    public bool Exists(string script) => ReadableFolder(script) is not null;
+
+    // ---- accept -----------------------------------------------------------------------------------
+
+    /// <summary>
+    /// Writes or refreshes the snapshot of <paramref name="script"/>: every mode's frames and run file and
+    /// the accepted findings, or, with <paramref name="checkpoint"/>, only that checkpoint's frames and
+    /// findings (the rest kept as they were).
+    /// </summary>
+    public void Accept(string script, IReadOnlyList<ModeRun> runs, IReadOnlyList<Finding> findings, string? checkpoint = null)
+    {
+        using var _ = GoldenLock.Acquire(Root, DisplayRoot);
+        var dir = ScriptFolder(script);
+        Recover(dir);
+        var files = checkpoint is null ? new SortedDictionary<string, byte[]>(StringComparer.Ordinal) : ReadAll(dir);
+        if (checkpoint is not null)
+        {
+            var reached = false;
+            foreach (var run in runs) reached |= run.FindCheckpoint(checkpoint) is not null;
+            if (!reached) throw new EngineException(ErrorCodes.Usage, "no mode reached a checkpoint labelled " + CellText.Quote(checkpoint) + " in " + script);
+        }
+        foreach (var run in runs)
+        {
+            var mode = run.Mode.Name;
+            var runFile = mode + "/" + GoldenNames.RunFile;
+            if (checkpoint is null || !files.ContainsKey(runFile)) files[runFile] = Utf8.GetBytes(GoldenRunText.Write(run));
+            if (checkpoint is not null)
+            {
+                files.Remove(mode + "/" + GoldenNames.FrameFile(checkpoint));
+                files.Remove(mode + "/" + GoldenNames.ArrowFile(checkpoint));
+            }
+            foreach (var c in run.Checkpoints)
+            {
+                if (checkpoint is not null && !string.Equals(c.Label, checkpoint, StringComparison.Ordinal)) continue;
+                var arrowName = GoldenNames.ArrowFile(c.Label);
+                files[mode + "/" + GoldenNames.FrameFile(c.Label)] = Utf8.GetBytes(GoldenFrameText.Write(c.Label, mode, c.Table, RowLimit, arrowName));
+                if (c.Table.RowCount > RowLimit) files[mode + "/" + arrowName] = GoldenArrow.Write(c.Label, run.Mode, c.Table);
+            }
+        }
+        var accepted = new List<AcceptedFinding>();
+        if (checkpoint is not null && files.TryGetValue(GoldenNames.FindingsFile, out var existing))
+        {
+            foreach (var a in GoldenFindingsText.Read(Utf8.GetString(existing), Display(script, GoldenNames.FindingsFile)).Findings)
+                if (!string.Equals(a.Checkpoint, checkpoint, StringComparison.Ordinal)) accepted.Add(a);
+        }
+        foreach (var f in findings)
+        {
+            if (f.Status == FindingStatus.Resolved) continue;
+            if (checkpoint is not null && !string.Equals(f.Checkpoint, checkpoint, StringComparison.Ordinal)) continue;
+            accepted.Add(GoldenFindingsText.FromFinding(f));
+        }
+        accepted.Sort(AcceptedOrder);
+        files[GoldenNames.FindingsFile] = Utf8.GetBytes(GoldenFindingsText.Write(script, accepted));
+        Swap(dir, files);
+    }
+
+    private static int AcceptedOrder(AcceptedFinding x, AcceptedFinding y)
+    {
+        var c = x.Line.CompareTo(y.Line);
+        if (c != 0) return c;
+        c = string.CompareOrdinal(x.Checkpoint, y.Checkpoint);
+        if (c != 0) return c;
+        c = KindIndex(x.Kind).CompareTo(KindIndex(y.Kind));
+        if (c != 0) return c;
+        c = string.CompareOrdinal(x.Column, y.Column);
+        return c != 0 ? c : string.CompareOrdinal(string.Join(",", x.Modes), string.Join(",", y.Modes));
+    }
+
+    private static int KindIndex(string label)
+    {
+        var i = 0;
+        foreach (var k in Enum.GetValues<FindingKind>())
+        {
+            if (string.Equals(k.ToString().ToLowerInvariant(), label, StringComparison.Ordinal)) return i;
+            i++;
+        }
+        return i;
+    }
+
+    private static SortedDictionary<string, byte[]> ReadAll(string dir)
+    {
+        var files = new SortedDictionary<string, byte[]>(StringComparer.Ordinal);
+        if (!Directory.Exists(dir)) return files;
+        foreach (var path in Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories))
+        {
+            var rel = Path.GetRelativePath(dir, path).Replace('\\', '/');
+            if (Path.GetFileName(rel).StartsWith('.')) continue; // temporary files of a cut-short write
+            files[rel] = File.ReadAllBytes(path);
+        }
+        return files;
+    }
+
+    private void Swap(string dir, SortedDictionary<string, byte[]> files)
+    {
+        var fresh = dir + NewSuffix;
+        var old = dir + OldSuffix;
+        if (Directory.Exists(fresh)) Directory.Delete(fresh, recursive: true);
+        Directory.CreateDirectory(fresh);
+        foreach (var (rel, bytes) in files)
+        {
+            var path = Path.Combine(fresh, rel);
+            AtomicFile.WriteAllBytes(path, bytes);
+            AfterStagedFile?.Invoke(path);
+        }
+        if (Directory.Exists(dir)) Directory.Move(dir, old);
+        BetweenRenames?.Invoke();
+        Directory.Move(fresh, dir);
+        if (Directory.Exists(old)) Directory.Delete(old, recursive: true);
+    }
+
+    /// <summary>Finishes or rolls back a swap cut short by a killed accept (called under the lock).</summary>
+    private static void Recover(string dir)
+    {
+        var old = dir + OldSuffix;
+        var fresh = dir + NewSuffix;
+        if (!Directory.Exists(dir) && Directory.Exists(old)) Directory.Move(old, dir);
+        if (Directory.Exists(old)) Directory.Delete(old, recursive: true);
+        if (Directory.Exists(fresh)) Directory.Delete(fresh, recursive: true);
+    }
+
+    // ---- compare ----------------------------------------------------------------------------------
+
+    /// <summary>The accepted findings of <paramref name="script"/>, or null when it has no golden folder or findings file.</summary>
+    public IReadOnlyList<AcceptedFinding>? ReadAccepted(string script)
+    {
+        var dir = ReadableFolder(script);
+        if (dir is null) return null;
+        var path = Path.Combine(dir, GoldenNames.FindingsFile);
+        if (!File.Exists(path)) return null;
+        return GoldenFindingsText.Read(File.ReadAllText(path, Utf8), Display(script, GoldenNames.FindingsFile)).Findings;
+    }
+
+    /// <summary>
+    /// Every difference between the runs and their snapshots: a missing folder, run file or checkpoint file,
+    /// a file whose text differs (with a line-diff excerpt), a snapshot of a checkpoint the run did not reach.
+    /// A corrupted file throws E-GOLDEN at its file:line:col.
+    /// </summary>
+    public IReadOnlyList<GoldenMismatch> CompareSnapshots(string script, IReadOnlyList<ModeRun> runs)
+    {
+        var result = new List<GoldenMismatch>();
+        var dir = ReadableFolder(script);
+        if (dir is null)
+        {
+            foreach (var run in runs)
+                result.Add(new GoldenMismatch(script, null, run.Mode.Name, "no golden snapshot at " + DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + "; run `parity accept` to create it", ""));
+            return result;
+        }
+        if (!File.Exists(Path.Combine(dir, GoldenNames.FindingsFile)))
+            result.Add(new GoldenMismatch(script, null, ModesText(runs), "no accepted findings file " + Display(script, GoldenNames.FindingsFile), ""));
+        foreach (var run in runs)
+        {
+            var mode = run.Mode.Name;
+            var modeDir = Path.Combine(dir, mode);
+            var runRel = mode + "/" + GoldenNames.RunFile;
+            var runPath = Path.Combine(modeDir, GoldenNames.RunFile);
+            var expectedRun = GoldenRunText.Write(run);
+            if (!File.Exists(runPath))
+                result.Add(new GoldenMismatch(script, null, mode, "no golden run file " + Display(script, runRel) + "; run `parity accept`", ""));
+            else
+            {
+                var stored = Normalize(File.ReadAllText(runPath, Utf8));
+                if (!string.Equals(stored, expectedRun, StringComparison.Ordinal))
+                {
+                    GoldenRunText.Read(stored, Display(script, runRel));
+                    result.Add(new GoldenMismatch(script, null, mode, "writes, warnings, notes or the error differ from " + Display(script, runRel), Excerpt(stored, expectedRun)));
+                }
+            }
+            var expectedFiles = new HashSet<string>(StringComparer.Ordinal);
+            foreach (var c in run.Checkpoints)
+            {
+                var name = GoldenNames.FrameFile(c.Label);
+                expectedFiles.Add(name);
+                var rel = mode + "/" + name;
+                var path = Path.Combine(modeDir, name);
+                if (!File.Exists(path))
+                {
+                    result.Add(new GoldenMismatch(script, c.Label, mode, "no golden snapshot " + Display(script, rel) + "; run `parity accept`", ""));
+                    continue;
+                }
+                var arrowName = GoldenNames.ArrowFile(c.Label);
+                var expected = GoldenFrameText.Write(c.Label, mode, c.Table, RowLimit, arrowName);
+                var storedText = Normalize(File.ReadAllText(path, Utf8));
+                if (!string.Equals(storedText, expected, StringComparison.Ordinal))
+                {
+                    GoldenFrameText.Read(storedText, Display(script, rel));
+                    result.Add(new GoldenMismatch(script, c.Label, mode, "the frame differs from " + Display(script, rel), Excerpt(storedText, expected)));
+                    continue;
+                }
+                if (c.Table.RowCount > RowLimit) VerifyArrow(script, mode, run.Mode, modeDir, arrowName, storedText);
+            }
+            if (!Directory.Exists(modeDir)) continue;
+            var extra = new List<string>();
+            foreach (var path in Directory.EnumerateFiles(modeDir, "*" + GoldenNames.FrameSuffix))
+                if (!expectedFiles.Contains(Path.GetFileName(path))) extra.Add(path);
+            extra.Sort(StringComparer.Ordinal);
+            foreach (var path in extra)
+            {
+                var rel = mode + "/" + Path.GetFileName(path);
+                var frame = GoldenFrameText.Read(Normalize(File.ReadAllText(path, Utf8)), Display(script, rel));
+                result.Add(new GoldenMismatch(script, frame.Label, mode, "the golden store has a snapshot of checkpoint " + CellText.Quote(frame.Label) + " that this run did not reach", ""));
+            }
+        }
+        return result;
+    }
+
+    private void VerifyArrow(string script, string mode, Mode m, string modeDir, string arrowName, string storedText)
+    {
+        var rel = mode + "/" + arrowName;
+        var display = Display(script, rel);
+        var path = Path.Combine(modeDir, arrowName);
+        if (!File.Exists(path)) throw new EngineException(ErrorCodes.Golden, "the Arrow data file is missing", display, 0, 0);
+        var frame = GoldenFrameText.Read(storedText, Display(script, mode + "/" + GoldenNames.FrameFile(ReadLabel(storedText))));
+        var table = GoldenArrow.Read(File.ReadAllBytes(path), m, display);
+        if (!string.Equals(GoldenFrameText.ContentHash(table), frame.Sha256, StringComparison.Ordinal))
+            throw new EngineException(ErrorCodes.Golden, "the Arrow data does not match the sha256 in its frame file", display, 0, 0);
+    }
+
+    private static string ReadLabel(string frameText)
+    {
+        var lines = frameText.Split('\n');
+        if (lines.Length > 1 && lines[1].StartsWith("label ", StringComparison.Ordinal)
+            && CellText.ScanQuoted(lines[1], 6, out var label, out _) > 0)
+            return label!;
+        return "";
+    }
+
+    private static string ModesText(IReadOnlyList<ModeRun> runs)
+    {
+        var names = new string[runs.Count];
+        for (var i = 0; i < names.Length; i++) names[i] = runs[i].Mode.Name;
+        return string.Join(",", names);
+    }
+
+    /// <summary>Line endings as written (a checkout that turned them into CRLF still compares equal).</summary>
+    private static string Normalize(string text) => text.Replace("\r\n", "\n", StringComparison.Ordinal);
+
+    /// <summary>A short line diff around the first differing line: one line of context, then up to three lines each side.</summary>
+    public static string Excerpt(string expected, string actual)
+    {
+        var e = expected.Split('\n');
+        var a = actual.Split('\n');
+        var i = 0;
+        while (i < e.Length && i < a.Length && string.Equals(e[i], a[i], StringComparison.Ordinal)) i++;
+        var sb = new StringBuilder();
+        sb.Append("@@ line ").Append((i + 1).ToString(System.Globalization.CultureInfo.InvariantCulture)).Append(" @@\n");
+        if (i > 0) sb.Append("  ").Append(e[i - 1]).Append('\n');
+        for (var k = i; k < Math.Min(e.Length, i + 3); k++)
+            if (k < e.Length - 1 || e[k].Length > 0) sb.Append("- ").Append(e[k]).Append('\n');
+        for (var k = i; k < Math.Min(a.Length, i + 3); k++)
+            if (k < a.Length - 1 || a[k].Length > 0) sb.Append("+ ").Append(a[k]).Append('\n');
+        return sb.ToString();
+    }
+
+    // ---- accepted findings ------------------------------------------------------------------------
+
+    /// <summary>
+    /// Marks each current finding new, accepted or changed against <paramref name="accepted"/> and adds a
+    /// resolved finding (count 0) for each accepted one that is gone. Null means no golden store: all new.
+    /// </summary>
+    public static IReadOnlyList<Finding> ApplyAccepted(IReadOnlyList<Finding> current, IReadOnlyList<AcceptedFinding>? accepted, string script)
+    {
+        if (accepted is null)
+        {
+            var all = new List<Finding>(current.Count);
+            foreach (var f in current) all.Add(f with { Status = FindingStatus.New });
+            return all;
+        }
+        var byId = new Dictionary<string, AcceptedFinding>(StringComparer.Ordinal);
+        foreach (var a in accepted) byId.TryAdd(a.Identity, a);
+        var matched = new HashSet<string>(StringComparer.Ordinal);
+        var result = new List<Finding>(current.Count + accepted.Count);
+        foreach (var f in current)
+        {
+            var id = FindingIdentity.Of(f);
+            if (!byId.TryGetValue(id, out var a))
+            {
+                result.Add(f with { Status = FindingStatus.New });
+                continue;
+            }
+            matched.Add(id);
+            result.Add(f with { Status = a.Count == f.Count ? FindingStatus.Accepted : FindingStatus.Changed, AcceptedCount = a.Count });
+        }
+        foreach (var a in accepted)
+        {
+            if (matched.Contains(a.Identity)) continue;
+            result.Add(new Finding
+            {
+                Kind = ParseKind(a.Kind),
+                Script = script,
+                Line = a.Line,
+                Checkpoint = a.Checkpoint,
+                Column = a.Column,
+                Count = 0,
+                AcceptedCount = a.Count,
+                Status = FindingStatus.Resolved,
+                Message = a.Message,
+                Hint = "resolved: `parity accept` drops it from the accepted set",
+                Modes = a.Modes,
+            });
+        }
+        result.Sort(Diffing.FindingOrder.Instance);
+        return result;
+    }
+
+    private static FindingKind ParseKind(string label)
+    {
+        foreach (var k in Enum.GetValues<FindingKind>())
+            if (string.Equals(k.ToString().ToLowerInvariant(), label, StringComparison.Ordinal)) return k;
+        return FindingKind.Value;
+    }
+}

@@ -1,0 +1,118 @@
+using System.Text;
+using Parity.Harness.Findings;
+using Parity.Harness.Reports.Internal;
+
+namespace Parity.Harness.Reports;
+
+/// <summary>
+/// The summary printed after <c>run</c> and <c>check</c>: per script one line with its status and finding
+/// counts by kind, then each finding on one line (kind, line, checkpoint, column, count, status, message)
+/// with its samples indented below, then golden mismatches. Colour (ANSI SGR) only when asked; data values
+/// never carry control characters to the terminal (they are shown as visible escapes).
+/// </summary>
+public static class TerminalSummary
+{
+    private const string Red = "\u001b[31m";
+    private const string Green = "\u001b[32m";
+    private const string Yellow = "\u001b[33m";
+    private const string Dim = "\u001b[2m";
+    private const string Bold = "\u001b[1m";
+    private const string Reset = "\u001b[0m";
+
+    public static void Write(GateReport report, TextWriter output, bool colour)
+    {
+        foreach (var script in report.Scripts)
+        {
+            var sb = new StringBuilder();
+            var failed = script.Failed;
+            Paint(sb, failed ? "FAIL" : "PASS", failed ? Red + Bold : Green + Bold, colour);
+            sb.Append("  ").Append(SafeText.Visible(script.Script))
+                .Append("  ").Append(ReportFacts.Int(script.Checkpoints.Count)).Append(script.Checkpoints.Count == 1 ? " checkpoint" : " checkpoints")
+                .Append(", findings: ").Append(ReportFacts.KindSummary(ReportFacts.CountByKind(script)));
+            AppendStatusCounts(sb, script);
+            if (script.GoldenMismatches.Count > 0)
+                sb.Append(", ").Append(ReportFacts.Int(script.GoldenMismatches.Count)).Append(script.GoldenMismatches.Count == 1 ? " golden mismatch" : " golden mismatches");
+            output.WriteLine(sb.ToString());
+
+            foreach (var f in script.Findings)
+                WriteFinding(output, f, colour);
+            foreach (var m in script.GoldenMismatches)
+            {
+                sb.Clear();
+                sb.Append("  ");
+                Paint(sb, "golden", Red, colour);
+                sb.Append("   mode ").Append(SafeText.Visible(m.Mode)).Append(", ")
+                    .Append(m.Checkpoint is null ? "accepted findings" : "checkpoint '" + SafeText.Visible(m.Checkpoint) + "'")
+                    .Append(": ").Append(SafeText.Visible(m.Message));
+                output.WriteLine(sb.ToString());
+                foreach (var line in m.Excerpt.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n'))
+                    if (line.Length > 0) output.WriteLine("      " + SafeText.Visible(line));
+            }
+        }
+        var total = new StringBuilder();
+        Paint(total, report.Failed ? "failed" : "passed", report.Failed ? Red + Bold : Green + Bold, colour);
+        var scripts = report.Scripts.Count;
+        total.Append(": ").Append(ReportFacts.Int(scripts)).Append(scripts == 1 ? " script" : " scripts")
+            .Append(", findings: ").Append(ReportFacts.KindSummary(ReportFacts.CountByKind(report)));
+        output.WriteLine(total.ToString());
+    }
+
+    private static void AppendStatusCounts(StringBuilder sb, ScriptResult script)
+    {
+        var parts = new List<string>();
+        foreach (var status in new[] { FindingStatus.New, FindingStatus.Changed, FindingStatus.Accepted, FindingStatus.Resolved })
+        {
+            var n = ReportFacts.CountByStatus(script, status);
+            if (n > 0) parts.Add(ReportFacts.Int(n) + " " + ReportFacts.Label(status));
+        }
+        if (parts.Count > 0) sb.Append(" (").Append(string.Join(", ", parts)).Append(')');
+    }
+
+    private static void WriteFinding(TextWriter output, Finding f, bool colour)
+    {
+        var sb = new StringBuilder("  ");
+        var kind = f.KindLabel;
+        Paint(sb, kind.PadRight(8), Bold, colour);
+        sb.Append("line ").Append(ReportFacts.Int(f.Line));
+        if (f.Checkpoint is not null) sb.Append("  checkpoint '").Append(SafeText.Visible(f.Checkpoint)).Append('\'');
+        if (f.Column is not null) sb.Append("  column '").Append(SafeText.Visible(f.Column)).Append('\'');
+        sb.Append("  x").Append(ReportFacts.Int(f.Count));
+        if (f.AcceptedCount is { } a && a != f.Count) sb.Append(" (accepted x").Append(ReportFacts.Int(a)).Append(')');
+        sb.Append("  ");
+        var status = ReportFacts.Label(f.Status);
+        Paint(sb, status, f.Status switch
+        {
+            FindingStatus.New or FindingStatus.Changed => Red,
+            FindingStatus.Accepted => Green,
+            _ => Dim,
+        }, colour);
+        sb.Append("  ").Append(SafeText.Visible(f.Message));
+        output.WriteLine(sb.ToString());
+
+        foreach (var sample in f.Samples)
+        {
+            sb.Clear();
+            sb.Append("      row ").Append(sample.Row is { } r ? ReportFacts.Int(r) : "-").Append(':');
+            for (var i = 0; i < f.Modes.Count; i++)
+            {
+                sb.Append(i == 0 ? "  " : "  |  ");
+                Paint(sb, SafeText.Visible(f.Modes[i]), Dim, colour);
+                sb.Append(' ').Append(SafeText.Visible(ReportFacts.SampleValue(sample, i)));
+            }
+            output.WriteLine(sb.ToString());
+        }
+        if (f.Hint.Length > 0 && f.Status is FindingStatus.New or FindingStatus.Changed)
+        {
+            sb.Clear();
+            sb.Append("      ");
+            Paint(sb, "hint: " + SafeText.Visible(f.Hint), Yellow, colour);
+            output.WriteLine(sb.ToString());
+        }
+    }
+
+    private static void Paint(StringBuilder sb, string text, string sgr, bool colour)
+    {
+        if (colour) sb.Append(sgr).Append(text).Append(Reset);
+        else sb.Append(text);
+    }
+}

@@ -1,0 +1,159 @@
+using System.Globalization;
+using Parity.Engine.Errors;
+using Parity.Engine.Frames;
+using Parity.Engine.IO;
+using Parity.Engine.Modes;
+using Parity.Script.Diagnostics;
+using Parity.Script.Syntax;
+
+namespace Parity.Script.Running.Internal;
+
+/// <summary>
+/// One run of one script in one mode: the named frames, the statements in order, and what they record.
+/// Every failure becomes a <see cref="ScriptException"/> at the offending node and stops the run.
+/// </summary>
+internal sealed partial class ScriptRun
+{
+    private readonly ScriptNode _script;
+    private readonly Mode _mode;
+    private readonly string _directory;
+    private readonly RunOptions _options;
+    private readonly ModeRun _run;
+    private readonly Dictionary<string, NamedFrame> _frames = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _labels = new(StringComparer.Ordinal);
+
+    public ScriptRun(ScriptNode script, Mode mode, string directory, RunOptions options, IReadOnlyDictionary<string, Table>? preloaded)
+    {
+        _script = script;
+        _mode = mode;
+        _directory = directory;
+        _options = options;
+        _run = new ModeRun(mode, script.File);
+        if (preloaded is not null)
+            foreach (var (name, table) in preloaded)
+                _frames[name] = new NamedFrame(name, Frame.FromTable(table), false);
+    }
+
+    public ModeRun Execute()
+    {
+        foreach (var statement in _script.Statements)
+        {
+            try
+            {
+                Execute(statement);
+            }
+            catch (ScriptException e)
+            {
+                _run.Failure = e.Diagnostic;
+                break;
+            }
+            catch (EngineException e)
+            {
+                _run.Failure = Diag(e.Code, e.Message, statement.Span);
+                break;
+            }
+            catch (Exception e) when (e is not OutOfMemoryException)
+            {
+                // A bug must not crash the other modes: report it where it happened.
+                _run.Failure = Diag(ErrorCodes.Internal, "internal error: " + e.Message, statement.Span);
+                break;
+            }
+        }
+        return _run;
+    }
+
+    private void Execute(Statement statement)
+    {
+        switch (statement)
+        {
+            case LoadStatement load: Load(load); break;
+            case LetStatement let: Let(let); break;
+            case SetStatement set: Set(set); break;
+            case CheckStatement check: Check(check); break;
+            default: throw Error(ErrorCodes.Internal, "unknown statement", statement.Span);
+        }
+    }
+
+    private void Load(LoadStatement load)
+    {
+        var full = ResolvePath(load);
+        var options = new LoadOptions { DisplayPath = load.Path, Format = load.Format?.Name.ToLowerInvariant() };
+        foreach (var o in load.Options)
+        {
+            switch (o.Key.Name.ToLowerInvariant())
+            {
+                case "missing":
+                {
+                    var tokens = new List<string>();
+                    foreach (var v in o.Values)
+                    {
+                        if (v.Value.Kind != Engine.Values.ValueKind.String) throw Error(ErrorCodes.BadOption, "missing tokens must be strings", v.Span);
+                        tokens.Add(v.Value.String);
+                    }
+                    options = options with { MissingTokens = tokens };
+                    break;
+                }
+                case "delimiter":
+                {
+                    if (o.Values.Count != 1 || o.Values[0].Value.Kind != Engine.Values.ValueKind.String || o.Values[0].Value.String.Length != 1)
+                        throw Error(ErrorCodes.BadOption, "delimiter must be one character, e.g. delimiter = ';'", o.Span);
+                    options = options with { Delimiter = o.Values[0].Value.String[0] };
+                    break;
+                }
+                default:
+                    throw Error(ErrorCodes.BadOption, $"unknown load option '{o.Key.Name}'" + NameSuggester.DidYouMean(o.Key.Name, ["missing", "delimiter"]), o.Key.Span);
+            }
+        }
+        Table table;
+        try
+        {
+            table = DataLoader.Load(full, options, _mode);
+        }
+        catch (EngineException e)
+        {
+            // Loaders name file, row and column themselves; keep their text and point at the path.
+            var where = e.Row > 0 ? $" ({e.File ?? load.Path}:{e.Row.ToString(CultureInfo.InvariantCulture)}" + (e.ColumnNumber > 0 ? ":" + e.ColumnNumber.ToString(CultureInfo.InvariantCulture) : "") + ")" : "";
+            throw Error(e.Code, e.Message + where, load.PathSpan);
+        }
+        _frames[load.Name.Name] = new NamedFrame(load.Name.Name, Frame.FromTable(table), false);
+    }
+
+    private string ResolvePath(LoadStatement load)
+    {
+        var full = Path.GetFullPath(Path.Combine(_directory, load.Path));
+        if (_options.AllowOutsideRoot) return full;
+        var root = Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
+        var rootWithSep = Path.EndsInDirectorySeparator(root) ? root : root + Path.DirectorySeparatorChar;
+        var comparison = OperatingSystem.IsWindows() ? StringComparison.OrdinalIgnoreCase : StringComparison.Ordinal;
+        if (!full.StartsWith(rootWithSep, comparison) && !string.Equals(full, root, comparison))
+            throw Error(ErrorCodes.PathOutsideRoot, $"path '{full}' is outside the root folder '{root}' (allow it explicitly to load it)", load.PathSpan);
+        return full;
+    }
+
+    private void Let(LetStatement let)
+    {
+        var (frame, copied) = Derive(let.Value);
+        _frames[let.Name.Name] = new NamedFrame(let.Name.Name, frame, copied);
+    }
+
+    private void Check(CheckStatement check)
+    {
+        var named = Named(check.Frame);
+        var label = check.EffectiveLabel;
+        if (!_labels.Add(label))
+            throw Error(ErrorCodes.DupCheckpoint, $"two checkpoints are labelled '{label}'", check.Span);
+        _run.Checkpoints.Add(new CheckpointResult(label, named.Name, check.Span.LineNumber, check.Span.ColumnNumber, named.Frame.Snapshot()));
+    }
+
+    private NamedFrame Named(Identifier id)
+    {
+        if (_frames.TryGetValue(id.Name, out var f)) return f;
+        throw Error(ErrorCodes.UnknownFrame, $"no frame named '{id.Name}'" + NameSuggester.DidYouMean(id.Name, _frames.Keys), id.Span);
+    }
+
+    private Diagnostic Diag(string code, string message, SourceSpan span) => new(code, message, _script.File, span);
+
+    private ScriptException Error(string code, string message, SourceSpan span) => new(Diag(code, message, span));
+
+    private ScriptException Error(EngineException e, SourceSpan span) => new(Diag(e.Code, e.Message, span));
+}

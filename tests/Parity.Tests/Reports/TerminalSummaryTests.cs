@@ -1,0 +1,50 @@
+using Parity.Harness.Reports;
+
+namespace Parity.Tests.Reports;
+
+public sealed class TerminalSummaryTests
+{
+    private static string Render(Parity.Harness.Findings.GateReport report, bool colour)
+    {
+        using var w = new StringWriter { NewLine = "\n" };
+        TerminalSummary.Write(report, w, colour);
+        return w.ToString();
+    }
+
+    [Fact]
+    public void Lists_scripts_then_one_line_per_finding_with_samples()
+    {
+        var text = Render(ReportFixtures.Ordinary(), colour: false);
+        var lines = text.Split('\n');
+        Assert.Equal("FAIL  ferry/tickets.parity  2 checkpoints, findings: 1 type, 1 missing, 1 alias (2 new, 1 accepted)", lines[0]);
+        Assert.Equal("  type    line 4  checkpoint 'adults'  column 'age'  x1  new  column 'age' is float64 under legacy and int64 under modern", lines[1]);
+        Assert.Contains("  missing line 4  checkpoint 'adults'  column 'age'  x2  accepted  missing ages print NaN under legacy and null under modern", lines);
+        Assert.Contains("      row 3:  legacy NaN  |  modern null", lines);
+        Assert.Contains("      row -:  legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);
+        Assert.Contains("PASS  ferry/routes.parity  1 checkpoint, findings: none (1 resolved)", lines);
+        Assert.Equal("failed: 2 scripts, findings: 1 type, 1 missing, 1 alias", lines[^2]);
+    }
+
+    // ECMA-48 control functions start with ESC (U+001B): without colour no ESC at all is written.
+    [Fact]
+    public void No_escape_sequences_without_colour_and_none_from_data_with_colour()
+    {
+        var plain = Render(ReportFixtures.Hostile(), colour: false);
+        foreach (var c in plain)
+            Assert.False(c < ' ' && c != '\n', "control character U+" + ((int)c).ToString("X4", System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Contains("bell\\u{7}esc\\u{1B}[31mred\\u{0}nul", plain, StringComparison.Ordinal);
+
+        var coloured = Render(ReportFixtures.Hostile(), colour: true);
+        Assert.Contains("\u001b[31m\u001b[1mFAIL\u001b[0m", coloured, StringComparison.Ordinal);
+        Assert.DoesNotContain("esc\u001b", coloured, StringComparison.Ordinal);
+        Assert.DoesNotContain('\u0007', coloured);
+        Assert.DoesNotContain('\u2028', coloured);
+    }
+
+    [Fact]
+    public void Every_finding_is_one_line()
+    {
+        var lines = Render(ReportFixtures.Hostile(), colour: false).Split('\n');
+        Assert.Equal(ReportFixtures.HostileTexts.Count, lines.Count(l => l.StartsWith("  value ", StringComparison.Ordinal) || l.StartsWith("  missing ", StringComparison.Ordinal)));
+    }
+}
