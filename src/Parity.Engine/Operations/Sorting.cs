@@ -42,7 +42,7 @@ public static class Sorting
             SortRanks(ranks, keys[k].Descending, sortRanks);
             KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
         }
-        if (card > (long)n * 2 + 1024) card = KeyCombiner.Densify(acc, card);
+        if (card > Math.Min((long)n * 2 + 1024, Array.MaxLength - 1)) card = KeyCombiner.Densify(acc, card);
         return CountingSort(acc, (int)card);
     }
 

@@ -1,8 +1,8 @@
 namespace Parity.Engine.Operations.Internal;
 
 /// <summary>
-/// Dense ranks for many distinct numeric keys: an LSD radix sort (8 bits a pass, passes where every key has
-/// the same byte skipped) of order-preserving unsigned keys, then one scan. Used when hashing would be slower
+/// Dense ranks for many distinct numeric keys: an LSD radix sort (11 bits a pass, passes where every key has
+/// the same digit skipped) of order-preserving unsigned keys, then one scan. Used when hashing would be slower
 /// because nearly every value is distinct.
 /// </summary>
 internal static class RadixRanks
@@ -45,20 +45,24 @@ internal static class RadixRanks
     /// <summary>Stable LSD radix sort of the first <paramref name="count"/> (key, row) pairs; the arrays may be swapped for scratch ones.</summary>
     public static void Sort(ref ulong[] keys, ref int[] rows, int count)
     {
-        var hist = new int[8 * 256];
+        // 11-bit digits: six passes cover 64 bits, and each histogram (2,048 counts) stays in L1.
+        const int Bits = 11;
+        const int Buckets = 1 << Bits;
+        const int Passes = 6;
+        var hist = new int[Passes * Buckets];
         for (var k = 0; k < count; k++)
         {
             var v = keys[k];
-            for (var b = 0; b < 8; b++) hist[(b << 8) + (int)((v >> (b << 3)) & 0xFF)]++;
+            for (var b = 0; b < Passes; b++) hist[(b * Buckets) + (int)((v >> (b * Bits)) & (Buckets - 1))]++;
         }
         ulong[]? tk = null;
         int[]? tr = null;
-        var offsets = new int[256];
-        for (var b = 0; b < 8; b++)
+        var offsets = new int[Buckets];
+        for (var b = 0; b < Passes; b++)
         {
-            var h = hist.AsSpan(b << 8, 256);
+            var h = hist.AsSpan(b * Buckets, Buckets);
             var trivial = false;
-            for (var d = 0; d < 256; d++)
+            for (var d = 0; d < Buckets; d++)
             {
                 if (h[d] == count) { trivial = true; break; }
                 if (h[d] != 0) break;
@@ -67,16 +71,16 @@ internal static class RadixRanks
             tk ??= new ulong[count];
             tr ??= new int[count];
             var sum = 0;
-            for (var d = 0; d < 256; d++)
+            for (var d = 0; d < Buckets; d++)
             {
                 offsets[d] = sum;
                 sum += h[d];
             }
-            var shift = b << 3;
+            var shift = b * Bits;
             for (var k = 0; k < count; k++)
             {
                 var v = keys[k];
-                var pos = offsets[(int)((v >> shift) & 0xFF)]++;
+                var pos = offsets[(int)((v >> shift) & (Buckets - 1))]++;
                 tk[pos] = v;
                 tr[pos] = rows[k];
             }
