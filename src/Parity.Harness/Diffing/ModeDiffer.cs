@@ -82,6 +82,9 @@ public static class ModeDiffer
         /// <summary>Named frames whose aliasing sets differ between the modes (they explain value findings).</summary>
         public HashSet<string> AliasedFrames { get; } = new(StringComparer.Ordinal);
 
+        /// <summary>The first line of a write whose aliasing sets differ, or int.MaxValue.</summary>
+        public int FirstAliasLine { get; set; } = int.MaxValue;
+
         public FindingGroup Group(FindingKind kind, int line, string? checkpoint, string? column)
         {
             var key = ((int)kind).ToString(CultureInfo.InvariantCulture) + "\u0001" + (checkpoint ?? "\u0002" + line.ToString(CultureInfo.InvariantCulture)) + "\u0001" + (column ?? "\u0002");
@@ -144,6 +147,7 @@ public static class ModeDiffer
             var sa = Sorted(wa.ChangedFrames);
             var sb = Sorted(wb.ChangedFrames);
             if (SameSet(sa, sb)) continue;
+            ctx.FirstAliasLine = Math.Min(ctx.FirstAliasLine, wa.Line);
             foreach (var n in sa) if (!sb.Contains(n)) ctx.AliasedFrames.Add(n);
             foreach (var n in sb) if (!sa.Contains(n)) ctx.AliasedFrames.Add(n);
             var chained = wa.Target.StartsWith('(') || HasWarning(ctx.A, wa.Line, ErrorCodes.ChainedWrite) || HasWarning(ctx.B, wa.Line, ErrorCodes.ChainedWrite);
@@ -291,7 +295,9 @@ public static class ModeDiffer
             return;
         }
 
-        var aliased = ctx.AliasedFrames.Contains(ca.FrameName) || ctx.AliasedFrames.Contains(cb.FrameName);
+        // A write that reached other frames in one mode explains value differences of its frames and of
+        // anything derived from them later; the differ cannot trace derivations, so any later checkpoint counts.
+        var aliased = ctx.AliasedFrames.Contains(ca.FrameName) || ctx.AliasedFrames.Contains(cb.FrameName) || ctx.FirstAliasLine < ca.Line;
         foreach (var n in commonA)
             CompareColumn(ctx, line, label, n, ta[n], tb[n], ta.RowCount, aliased);
     }

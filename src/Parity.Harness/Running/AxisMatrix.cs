@@ -71,12 +71,20 @@ public static class AxisMatrix
         {
             output.Append(first[i].PadRight(width));
             foreach (var n in rows[i].PairsPerAxis)
+            {
                 output.Append("  ").Append((n == 0 ? "-" : n.ToString(CultureInfo.InvariantCulture) + "/4").PadRight(7));
+            }
+            TrimEnd(output);
             output.Append('\n');
         }
         if (rows.Count == 0) output.Append("(no findings between legacy and modern)\n");
         output.Append("n/4: the finding appears in n of the 4 mode pairs that differ in that axis only\n");
         return output.ToString();
+    }
+
+    private static void TrimEnd(StringBuilder sb)
+    {
+        while (sb.Length > 0 && sb[^1] == ' ') sb.Length--;
     }
 
     private static string Place(Finding f) =>

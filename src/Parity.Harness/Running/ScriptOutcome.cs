@@ -38,14 +38,15 @@ public sealed record ScriptOutcome
             foreach (var d in ParseErrors) list.Add(d.Format());
             if (ParseErrors.Count == 0 && FailedInEveryMode)
             {
+                var distinct = new List<string>();
                 foreach (var r in Runs)
                 {
-                    var text = r.Failure!.Format() + (Runs.Count > 1 ? " [" + r.Mode.Name + "]" : "");
-                    var plain = r.Failure.Format();
-                    var dup = false;
-                    foreach (var x in list) dup |= x.StartsWith(plain, StringComparison.Ordinal);
-                    if (!dup) list.Add(text);
+                    var plain = r.Failure!.Format();
+                    if (!distinct.Contains(plain)) distinct.Add(plain);
                 }
+                if (distinct.Count == 1) list.Add(distinct[0]);
+                else
+                    foreach (var r in Runs) list.Add(r.Failure!.Format() + " [" + r.Mode.Name + "]");
             }
             return list;
         }
