@@ -20,8 +20,8 @@ public static class RatioCatalog
     ];
 
     private static Parity.Engine.Columns.Column Contains(Parity.Engine.Columns.Column s, Mode mode) =>
-        StringKernels.Match(StringPredicate.Contains, s, Broadcast.Literal(Value.Of("xyz"), s.Length, mode), mode);
+        StringKernels.Match(StringPredicate.Contains, s, Value.Of("xyz"), mode);
 
     private static Parity.Engine.Columns.Column EqualsLiteral(Parity.Engine.Columns.Column s, Mode mode) =>
-        Comparison.Compare(ComparisonOp.Equal, s, Broadcast.Literal(Value.Of("abcdefghijklmno"), s.Length, mode), mode);
+        Comparison.Compare(ComparisonOp.Equal, s, Value.Of("abcdefghijklmno"), mode);
 }
