@@ -384,14 +384,28 @@ public static class ModeDiffer
     private static bool LongEqualsDouble(long l, double d) =>
         d >= -9.2233720368547758E18 && d < 9.2233720368547758E18 && Math.Floor(d) == d && (long)d == l;
 
+    /// <summary>Rows per bulk equality test (a power of two).</summary>
+    private const int EqualBlock = 4096;
+
     private static void CompareColumn(Context ctx, int line, string label, string name, Column ca, Column cb, int rows, bool aliased)
     {
         FindingGroup? values = null;
         FindingGroup? missing = null;
         var tolerance = ctx.Options.FloatTolerance;
         var anyFloat = ca.Type == ColumnType.Float64 || cb.Type == ColumnType.Float64;
+        // Blocks whose buffers are byte-equal hold no finding; only the others are compared cell by cell.
+        var bulk = BlockEquality.For(ca, cb);
         for (var r = 0; r < rows; r++)
         {
+            if (bulk is not null && (r & (EqualBlock - 1)) == 0)
+            {
+                var count = Math.Min(EqualBlock, rows - r);
+                if (bulk.Same(r, count))
+                {
+                    r += count - 1;
+                    continue;
+                }
+            }
             var a = ca.GetValue(r);
             var b = cb.GetValue(r);
             var d = Classify(a, b, tolerance);
