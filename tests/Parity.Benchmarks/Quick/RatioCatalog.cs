@@ -17,6 +17,15 @@ public static class RatioCatalog
         new ScanOverKernelRatio("length.scan_over_arrow", StringKernels.Length),
         new ScanOverKernelRatio("contains.scan_over_arrow", Contains),
         new StringBytesRatio(),
+        new ReshapeRatio(),
+        new LoadRatio("ipc", 50),
+        new LoadRatio("parquet", 2),
+        new ReferenceFrameRatio("filter", 3),
+        new ReferenceFrameRatio("groupsum", 3),
+        new ReferenceFrameRatio("sort", 5),
+        new ReferenceFrameRatio("join", 10),
+        new DiffRatio(),
+        new EndToEndRatio(),
     ];
 
     private static Parity.Engine.Columns.Column Contains(Parity.Engine.Columns.Column s, Mode mode) =>
