@@ -16,8 +16,9 @@ namespace Parity.Engine.Operations;
 /// <item>missing values (any marker) last in both directions;</item>
 /// <item>ties keep input order.</item>
 /// </list>
-/// Each key column is reduced to dense ranks (distinct values hashed from typed buffers, only the distinct
-/// values sorted), the ranks are combined into one integer per row and a counting sort gives the permutation.
+/// A single numeric key is radix-sorted directly. Otherwise each key column is reduced to dense ranks
+/// (distinct values hashed from typed buffers and only those sorted, or a radix sort when nearly every value
+/// is distinct), the ranks are combined into one integer per row and a counting sort gives the permutation.
 /// </summary>
 public static class Sorting
 {
