@@ -114,7 +114,7 @@ public static class Sorting
                 perm = [];
                 return false;
         }
-        RadixRanks.Sort(ref keys, ref rows, m);
+        RadixRanks.SortLarge(ref keys, ref rows, m);
         perm = new int[n];
         rows.AsSpan(0, m).CopyTo(perm);
         tail.AsSpan(0, nanCount).CopyTo(perm.AsSpan(m));
