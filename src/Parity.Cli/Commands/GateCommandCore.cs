@@ -118,7 +118,8 @@ internal static class GateCommandCore
             results.Add(GateRunner.Evaluate(outcome, store, compareSnapshots, diff));
         }
         var report = new GateReport { Command = command, Scripts = results };
-        TerminalSummary.Write(report, context.Out, context.Interactive);
+        // When nothing could run, the located errors on stderr are the whole story; "passed: 0 scripts" would mislead.
+        if (results.Count > 0 || !badInput) TerminalSummary.Write(report, context.Out, context.Interactive);
         if (outDir is not null)
         {
             var dir = Path.GetFullPath(outDir, context.WorkingDirectory);

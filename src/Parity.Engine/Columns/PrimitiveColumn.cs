@@ -43,6 +43,22 @@ public abstract class PrimitiveColumn<T> : Column
         var src = Values.Span;
         var dst = new T[rows.Length];
         byte[]? bits = null;
+        if (!Validity.HasBitmap)
+        {
+            // No bitmap: only a -1 row can be missing, so the loop reads no validity.
+            for (var i = 0; i < rows.Length; i++)
+            {
+                var r = rows[i];
+                if (r >= 0)
+                {
+                    dst[i] = src[r];
+                    continue;
+                }
+                bits ??= InitAllValid(rows.Length);
+                bits[i >> 3] &= (byte)~(1 << (i & 7));
+            }
+            return With(dst, bits is null ? Validity.AllValid(rows.Length) : new Validity(bits, 0, rows.Length));
+        }
         for (var i = 0; i < rows.Length; i++)
         {
             var r = rows[i];

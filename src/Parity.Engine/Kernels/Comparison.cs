@@ -13,7 +13,7 @@ namespace Parity.Engine.Kernels;
 /// (<c>null</c> modes, e.g. 0/0) compares as IEEE 754 says: unordered, so only <c>&lt;&gt;</c> is true.
 /// Strings compare in Unicode code point order (UTF-8 byte order for Arrow storage).
 /// </summary>
-public static class Comparison
+public static partial class Comparison
 {
     private const int Unordered = 2;
 

@@ -1,5 +1,6 @@
 using Parity.Engine.Columns;
 using Parity.Engine.Modes;
+using Parity.Engine.Values;
 
 namespace Parity.Engine.Kernels;
 
@@ -65,6 +66,51 @@ public static partial class StringKernels
             keep[i] = ObjectColumn.IsMissingCell(c, o.Marker) ? c : double.NaN;
         }
         return Finish(result, missing, keep, mode);
+    }
+
+    /// <summary>
+    /// The same predicate with a literal pattern (what a script's <c>contains(s, 'x')</c> passes): no pattern
+    /// column is broadcast. Arrow storage searches the whole data buffer at once; every other case runs the
+    /// column overload over a broadcast literal, so the rules stay in one place.
+    /// </summary>
+    public static Column Match(StringPredicate predicate, Column s, Value pattern, Mode mode)
+    {
+        if (s is Utf8Column u && pattern.Kind == ValueKind.String && (mode.IsNull || mode.IsArrow))
+        {
+            var n = u.Length;
+            var find = System.Text.Encoding.UTF8.GetBytes(pattern.String);
+            bool[] result;
+            if (find.Length == 0)
+            {
+                result = GC.AllocateUninitializedArray<bool>(n);
+                result.AsSpan().Fill(true);
+            }
+            else if (predicate == StringPredicate.Contains)
+            {
+                result = new bool[n];
+                Utf8Scans.Contains(u, find, result);
+            }
+            else
+            {
+                result = GC.AllocateUninitializedArray<bool>(n);
+                Utf8Scans.Affix(u, find, predicate == StringPredicate.StartsWith, result);
+            }
+            return Utf8Result(u, result, false, mode);
+        }
+        return Match(predicate, s, Broadcast.Literal(pattern, s.Length, mode), mode);
+    }
+
+    /// <summary>
+    /// A bool result over an Arrow column's rows: under <c>null</c> the input's validity (copied); under
+    /// <c>arrow+nan</c> a missing row gets <paramref name="missingValue"/> and no bitmap.
+    /// </summary>
+    internal static Column Utf8Result(Utf8Column u, bool[] result, bool missingValue, Mode mode)
+    {
+        if (!Utf8Scans.HasMissing(u)) return new BoolColumn(result, mode.Missing);
+        var validity = Utf8Scans.CopyValidity(u);
+        if (mode.IsNull) return new BoolColumn(result, validity, mode.Missing);
+        Utf8Scans.FillMissing(validity, result, missingValue);
+        return new BoolColumn(result, mode.Missing);
     }
 
     public static string Name(StringPredicate predicate) => predicate switch

@@ -18,26 +18,11 @@ public static partial class StringKernels
     public static Column Length(Column s, Mode mode)
     {
         var n = s.Length;
+        if (s is Utf8Column utf8) return LengthUtf8(utf8, mode);
         var data = new long[n];
         bool[]? missing;
         switch (s)
         {
-            case Utf8Column u:
-            {
-                missing = KernelSupport.MissingFlags(u);
-                ReadOnlySpan<int> off = u.Offsets;
-                var bytes = u.Data;
-                if (n > 0 && Utf8Text.IsAscii(bytes[off[0]..off[n]]))
-                {
-                    // All-ASCII fast path: one byte per code point.
-                    for (var i = 0; i < n; i++) data[i] = off[i + 1] - off[i];
-                }
-                else
-                {
-                    for (var i = 0; i < n; i++) data[i] = Utf8Text.CodePointCount(bytes[off[i]..off[i + 1]]);
-                }
-                break;
-            }
             case ObjectColumn o:
             {
                 var cells = o.Cells.Span;
@@ -55,6 +40,25 @@ public static partial class StringKernels
                 break;
         }
         return KernelSupport.Int(data, missing, mode);
+    }
+
+    /// <summary>
+    /// Arrow storage: counts over the whole data buffer (<see cref="Utf8Scans.CodePointCounts"/>), validity
+    /// copied as bytes. Same results as the boxed path (spec §2.2 <c>length</c>).
+    /// </summary>
+    private static Column LengthUtf8(Utf8Column u, Mode mode)
+    {
+        var n = u.Length;
+        var data = GC.AllocateUninitializedArray<long>(n);
+        Utf8Scans.CodePointCounts(u, data);
+        if (!Utf8Scans.HasMissing(u)) return new Int64Column(data, mode.Missing);
+        var validity = Utf8Scans.CopyValidity(u);
+        if (mode.IsNull) return new Int64Column(data, validity, mode.Missing);
+        // nan: a missing input makes the result float64 with NaN (spec §2.1).
+        var d = GC.AllocateUninitializedArray<double>(n);
+        var bits = validity.Bits.Span;
+        for (var i = 0; i < n; i++) d[i] = (bits[i >> 3] & (1 << (i & 7))) != 0 ? data[i] : double.NaN;
+        return new Float64Column(d, mode.Missing);
     }
 
     public static Column Upper(Column s, Mode mode) => CaseMap(s, mode, upper: true);

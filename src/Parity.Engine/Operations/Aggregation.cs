@@ -73,7 +73,7 @@ public static class Aggregation
         var counts = new long[groups.GroupCount];
         var groupOf = groups.GroupOf;
         var space = groups.GroupCount * vc;
-        if (space <= (long)r.Length * 2 + 1024)
+        if (space <= Math.Min((long)r.Length * 2 + 1024, Array.MaxLength))
         {
             var seen = new bool[space];
             for (var i = 0; i < r.Length; i++)

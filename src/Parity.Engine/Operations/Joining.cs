@@ -77,6 +77,11 @@ public static class Joining
             }
         }
 
+        // Every left row once and in order (each key matched exactly once): the left columns are the result's
+        // as they are. Columns are immutable, so sharing them is safe in every mode.
+        var identity = total == left.RowCount;
+        for (var i = 0; identity && i < leftRows.Length; i++) identity = leftRows[i] == i;
+
         var names = new List<string>(left.ColumnCount + right.ColumnCount);
         var columns = new List<Column>(names.Capacity);
         var taken = new HashSet<string>(StringComparer.Ordinal);
@@ -84,7 +89,7 @@ public static class Joining
         {
             names.Add(left.Names[c]);
             taken.Add(left.Names[c]);
-            columns.Add(Gatherer.Gather(left.Columns[c], leftRows));
+            columns.Add(identity ? left.Columns[c] : Gatherer.Gather(left.Columns[c], leftRows));
         }
         for (var c = 0; c < right.ColumnCount; c++)
         {

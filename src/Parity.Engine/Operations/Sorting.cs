@@ -16,8 +16,9 @@ namespace Parity.Engine.Operations;
 /// <item>missing values (any marker) last in both directions;</item>
 /// <item>ties keep input order.</item>
 /// </list>
-/// Each key column is reduced to dense ranks (distinct values hashed from typed buffers, only the distinct
-/// values sorted), the ranks are combined into one integer per row and a counting sort gives the permutation.
+/// A single numeric key is radix-sorted directly. Otherwise each key column is reduced to dense ranks
+/// (distinct values hashed from typed buffers and only those sorted, or a radix sort when nearly every value
+/// is distinct), the ranks are combined into one integer per row and a counting sort gives the permutation.
 /// </summary>
 public static class Sorting
 {
@@ -42,7 +43,7 @@ public static class Sorting
             SortRanks(ranks, keys[k].Descending, sortRanks);
             KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
         }
-        if (card > (long)n * 2 + 1024) card = KeyCombiner.Densify(acc, card);
+        if (card > Math.Min((long)n * 2 + 1024, Array.MaxLength - 1)) card = KeyCombiner.Densify(acc, card);
         return CountingSort(acc, (int)card);
     }
 
@@ -113,7 +114,7 @@ public static class Sorting
                 perm = [];
                 return false;
         }
-        RadixRanks.Sort(ref keys, ref rows, m);
+        RadixRanks.SortLarge(ref keys, ref rows, m);
         perm = new int[n];
         rows.AsSpan(0, m).CopyTo(perm);
         tail.AsSpan(0, nanCount).CopyTo(perm.AsSpan(m));

@@ -58,7 +58,7 @@ public static class TableOps
         var kept = 0;
         foreach (var m in missing)
             if (!m) kept++;
-        if (kept == n) return GatherExisting(table, ColumnRanker.Iota(n));
+        if (kept == n) return new Table(table.Names, table.Columns, n); // columns are immutable: share them
         var rows = new int[kept];
         var j = 0;
         for (var i = 0; i < n; i++)

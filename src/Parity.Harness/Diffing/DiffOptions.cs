@@ -13,4 +13,7 @@ public sealed record DiffOptions
 
     /// <summary>Most sample rows kept per finding.</summary>
     public int MaxSamples { get; init; } = 5;
+
+    /// <summary>Tests: skip the typed fast pass and classify every row generically (the results must not change).</summary>
+    internal bool GenericOnly { get; init; }
 }

@@ -13,6 +13,7 @@ public static class MigrationHints
     public const string OtherType = "the column type differs between modes: `cast c to TYPE` where later steps depend on it";
     public const string FloatValue = "numbers differ: if the difference is rounding, compare with `--float-tolerance`; otherwise trace the statements that computed the column";
     public const string AliasValue = "the frame was changed through a view or a chained write in one mode only: write into the named frame with `set F.c = ... where COND` instead of through a temporary";
+    public const string TypeLabelValue = "type_of(c) gives the storage's label ('object' under boxed, 'utf8' under arrow): do not branch on type labels; test the values instead";
     public const string OtherValue = "values differ between modes: trace the statements that computed the column against the rules of the modes compared";
     public const string NanText = "test `x is null` before text(x): under boxed+nan text() turns a missing value into the string 'nan'";
     public const string ValueVersusMissing = "a cell is a value in one mode and missing in the other: make the missing case explicit with `x is null` or `coalesce(x, ...)`";

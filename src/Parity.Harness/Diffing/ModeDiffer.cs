@@ -27,6 +27,9 @@ namespace Parity.Harness.Diffing;
 /// </summary>
 public static class ModeDiffer
 {
+    /// <summary>Most rows searched for the samples of a type finding.</summary>
+    private const int TypeSampleScan = 10_000;
+
     /// <summary>Diffs the first run (the baseline) against every other run; findings in a deterministic order.</summary>
     public static IReadOnlyList<Finding> CompareAll(IReadOnlyList<ModeRun> runs, string script, DiffOptions options)
     {
@@ -280,7 +283,9 @@ public static class ModeDiffer
             if (string.Equals(colA.TypeLabel, colB.TypeLabel, StringComparison.Ordinal)) continue;
             var g = ctx.Group(FindingKind.Type, line, label, n);
             g.Add("type " + colA.TypeLabel + " in " + ctx.NameA + ", " + colB.TypeLabel + " in " + ctx.NameB, 1, TypeHint(colA, colB), 0);
-            var rows = Math.Min(ta.RowCount, tb.RowCount);
+            // Samples show how the representation differs (34.0 against 34); the search is bounded because a
+            // storage-only difference (object against utf8) displays the same in every row.
+            var rows = Math.Min(Math.Min(ta.RowCount, tb.RowCount), TypeSampleScan);
             for (var r = 0; r < rows && g.WantsSample; r++)
             {
                 var da = CellText.Display(colA.GetValue(r));
@@ -390,7 +395,15 @@ public static class ModeDiffer
         FindingGroup? missing = null;
         var tolerance = ctx.Options.FloatTolerance;
         var anyFloat = ca.Type == ColumnType.Float64 || cb.Type == ColumnType.Float64;
-        for (var r = 0; r < rows; r++)
+        // The typed pass skips rows that are certainly equal; a tolerance needs every numeric row, so it looks at all.
+        var candidates = new List<int>();
+        if (tolerance > 0 || ctx.Options.GenericOnly)
+            for (var r = 0; r < rows; r++) candidates.Add(r);
+        else
+            CellScan.Candidates(ca, cb, rows, candidates);
+        // Reasons repeat for every cell of a column: build each text once.
+        var reasons = new Dictionary<int, (string Text, string Hint, int Rank)>();
+        foreach (var r in candidates)
         {
             var a = ca.GetValue(r);
             var b = cb.GetValue(r);
@@ -399,31 +412,39 @@ public static class ModeDiffer
             if (d == CellDiff.Value)
             {
                 values ??= ctx.Group(FindingKind.Value, line, label, name);
-                var hint = aliased ? MigrationHints.AliasValue : anyFloat && a.IsNumber && b.IsNumber ? MigrationHints.FloatValue : MigrationHints.OtherValue;
-                values.Add("values differ" + (tolerance > 0 ? " (beyond the float tolerance)" : ""), 1, hint, aliased ? 2 : anyFloat ? 1 : 0);
+                var numeric = anyFloat && a.IsNumber && b.IsNumber;
+                var labels = IsTypeLabel(a) && IsTypeLabel(b);
+                var hint = aliased ? MigrationHints.AliasValue : labels ? MigrationHints.TypeLabelValue : numeric ? MigrationHints.FloatValue : MigrationHints.OtherValue;
+                values.Add(tolerance > 0 ? "values differ (beyond the float tolerance)" : "values differ", 1, hint, aliased ? 3 : labels ? 2 : numeric ? 1 : 0);
                 if (values.WantsSample) values.Sample(r, CellText.Display(a), CellText.Display(b));
                 continue;
             }
             missing ??= ctx.Group(FindingKind.Missing, line, label, name);
-            switch (d)
+            var key = ((int)d << 16) | ((int)a.Missing << 8) | (int)b.Missing;
+            if (!reasons.TryGetValue(key, out var reason))
             {
-                case CellDiff.MarkerKind:
-                    missing.Add(ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.MarkerKind, 0);
-                    break;
-                case CellDiff.NanText:
-                    missing.Add(a.IsMissing
-                        ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has the text 'nan'"
-                        : "the text 'nan' in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.NanText, 3);
-                    break;
-                default:
-                    missing.Add(a.IsMissing
-                        ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has a value"
-                        : "a value in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), 1, MigrationHints.ValueVersusMissing, 2);
-                    break;
+                reason = MissingReason(ctx, d, a, b);
+                reasons.Add(key, reason);
             }
+            missing.Add(reason.Text, 1, reason.Hint, reason.Rank);
             if (missing.WantsSample) missing.Sample(r, CellText.Display(a), CellText.Display(b));
         }
     }
+
+    /// <summary>A string that is a type label of spec §2.1, as type_of(c) gives it.</summary>
+    private static bool IsTypeLabel(Value v) =>
+        v.Kind == ValueKind.String && ColumnTypes.TryParseLabel(v.String, out _);
+
+    private static (string Text, string Hint, int Rank) MissingReason(Context ctx, CellDiff d, Value a, Value b) => d switch
+    {
+        CellDiff.MarkerKind => (ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), MigrationHints.MarkerKind, 0),
+        CellDiff.NanText => (a.IsMissing
+            ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has the text 'nan'"
+            : "the text 'nan' in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), MigrationHints.NanText, 3),
+        _ => (a.IsMissing
+            ? ValueText.MissingName(a.Missing) + " in " + ctx.NameA + " where " + ctx.NameB + " has a value"
+            : "a value in " + ctx.NameA + " where " + ctx.NameB + " has " + ValueText.MissingName(b.Missing), MigrationHints.ValueVersusMissing, 2),
+    };
 
     // ---- helpers ----------------------------------------------------------------------------------
 

@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Globalization;
 using System.Text;
 using Parity.Engine.Columns;

@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Text;
 using Parity.Engine.Errors;
 using Parity.Engine.Modes;
@@ -248,7 +249,7 @@ public sealed class GoldenStore
                     result.Add(new GoldenMismatch(script, c.Label, mode, "the frame differs from " + Display(script, rel), Excerpt(storedText, expected)));
                     continue;
                 }
-                if (c.Table.RowCount > RowLimit) VerifyArrow(script, mode, run.Mode, modeDir, arrowName, storedText);
+                if (c.Table.RowCount > RowLimit) VerifyArrow(script, mode, run.Mode, modeDir, arrowName, storedText, Display(script, rel));
             }
             if (!Directory.Exists(modeDir)) continue;
             var extra = new List<string>();
@@ -265,25 +266,16 @@ public sealed class GoldenStore
         return result;
     }
 
-    private void VerifyArrow(string script, string mode, Mode m, string modeDir, string arrowName, string storedText)
+    private void VerifyArrow(string script, string mode, Mode m, string modeDir, string arrowName, string storedText, string frameDisplay)
     {
         var rel = mode + "/" + arrowName;
         var display = Display(script, rel);
         var path = Path.Combine(modeDir, arrowName);
         if (!File.Exists(path)) throw new EngineException(ErrorCodes.Golden, "the Arrow data file is missing", display, 0, 0);
-        var frame = GoldenFrameText.Read(storedText, Display(script, mode + "/" + GoldenNames.FrameFile(ReadLabel(storedText))));
+        var frame = GoldenFrameText.Read(storedText, frameDisplay);
         var table = GoldenArrow.Read(File.ReadAllBytes(path), m, display);
         if (!string.Equals(GoldenFrameText.ContentHash(table), frame.Sha256, StringComparison.Ordinal))
             throw new EngineException(ErrorCodes.Golden, "the Arrow data does not match the sha256 in its frame file", display, 0, 0);
-    }
-
-    private static string ReadLabel(string frameText)
-    {
-        var lines = frameText.Split('\n');
-        if (lines.Length > 1 && lines[1].StartsWith("label ", StringComparison.Ordinal)
-            && CellText.ScanQuoted(lines[1], 6, out var label, out _) > 0)
-            return label!;
-        return "";
     }
 
     private static string ModesText(IReadOnlyList<ModeRun> runs)

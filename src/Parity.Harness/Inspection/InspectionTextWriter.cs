@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using Parity.Harness.Showing;
 
 namespace Parity.Harness.Inspection;
 
@@ -21,7 +22,7 @@ public static class InspectionTextWriter
         rows.Add(["total", "", "", Num(inspection.Missing), Num(inspection.BytesBoxed), Num(inspection.BytesArrow)]);
         var widths = new int[Headings.Length];
         foreach (var r in rows)
-            for (var i = 0; i < r.Length; i++) widths[i] = Math.Max(widths[i], r[i].Length);
+            for (var i = 0; i < r.Length; i++) widths[i] = Math.Max(widths[i], DisplayWidth.Of(r[i]));
         for (var k = 0; k < rows.Count; k++)
         {
             if (k == rows.Count - 1) output.Write(Rule(widths) + "\n");
@@ -30,8 +31,9 @@ public static class InspectionTextWriter
             for (var i = 0; i < r.Length; i++)
             {
                 if (i > 0) line.Append("  ");
-                // Text columns left-aligned, numbers right-aligned.
-                line.Append(i < 3 ? r[i].PadRight(widths[i]) : r[i].PadLeft(widths[i]));
+                // Text columns left-aligned, numbers right-aligned; pad by display width (wide CJK and emoji count 2).
+                var pad = new string(' ', widths[i] - DisplayWidth.Of(r[i]));
+                line.Append(i < 3 ? r[i] + pad : pad + r[i]);
             }
             output.Write(line.ToString().TrimEnd() + "\n");
         }

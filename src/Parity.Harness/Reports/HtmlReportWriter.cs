@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Security.Cryptography;
 using System.Text;
 using Parity.Harness.Findings;

@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Text;
 using System.Xml;
 using Parity.Harness.Findings;

@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Text;
 using System.Text.Json;
 using Parity.Harness.Findings;

@@ -1,3 +1,4 @@
+using Parity.Harness.Storage;
 using System.Text;
 using Parity.Harness.Findings;
 using Parity.Harness.Reports.Internal;

@@ -92,7 +92,9 @@ public static class TerminalSummary
         foreach (var sample in f.Samples)
         {
             sb.Clear();
-            sb.Append("      row ").Append(sample.Row is { } r ? ReportFacts.Int(r) : "-").Append(':');
+            // Statement-level samples (aliasing sets, warnings) have no row.
+            sb.Append("    ");
+            if (sample.Row is { } r) sb.Append("  row ").Append(ReportFacts.Int(r)).Append(':');
             for (var i = 0; i < f.Modes.Count; i++)
             {
                 sb.Append(i == 0 ? "  " : "  |  ");

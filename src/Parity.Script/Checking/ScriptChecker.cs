@@ -165,22 +165,48 @@ internal sealed class ScriptChecker
         foreach (var item in group.Computes)
         {
             names.Add(item.Name);
-            if (item.Value is CallExpr call && FunctionCatalog.IsAggregate(call.Function.Name))
+            if (!CheckComputed(item.Value))
             {
-                CheckArity(call);
-                foreach (var arg in call.Args) CheckExpr(arg, "an aggregate's argument");
-            }
-            else if (item.Value is CallExpr unknown && !FunctionCatalog.IsKnown(unknown.Function.Name))
-            {
-                CheckExpr(unknown, "compute");
-            }
-            else
-            {
-                Report(ErrorCodes.AggregatePlace, item.Value.Span, "'compute' needs one aggregate call per column, such as "
+                Report(ErrorCodes.AggregatePlace, item.Value.Span, "'compute' needs an aggregate in each column, such as "
                     + item.Name.Name + " = sum(fare) (aggregates: " + string.Join(", ", FunctionCatalog.AggregateNames) + ")");
             }
         }
         CheckUnique(names, "group by ... compute");
+    }
+
+    /// <summary>
+    /// Walks a <c>compute</c> expression: aggregates may stand anywhere except inside another aggregate's
+    /// argument (<c>round(avg(fare), 2)</c> is fine, <c>sum(count())</c> is not). Returns whether it holds one.
+    /// </summary>
+    private bool CheckComputed(Expr expr)
+    {
+        switch (expr)
+        {
+            case BinaryExpr binary:
+                return CheckComputed(binary.Left) | CheckComputed(binary.Right);
+            case UnaryExpr unary:
+                return CheckComputed(unary.Operand);
+            case IsNullExpr isNull:
+                return CheckComputed(isNull.Operand);
+            case CallExpr call when FunctionCatalog.IsAggregate(call.Function.Name):
+                CheckArity(call);
+                foreach (var arg in call.Args) CheckExpr(arg, "an aggregate's argument");
+                return true;
+            case CallExpr call:
+                if (!FunctionCatalog.IsKnown(call.Function.Name))
+                {
+                    Report(ErrorCodes.UnknownFunction, call.Function.Span, "unknown function '" + call.Function.Name + "'"
+                        + NameSuggester.DidYouMean(call.Function.Name, FunctionCatalog.Names));
+                    foreach (var arg in call.Args) CheckComputed(arg);
+                    return true; // a misspelt aggregate: one error is enough
+                }
+                CheckArity(call);
+                var any = false;
+                foreach (var arg in call.Args) any |= CheckComputed(arg);
+                return any;
+            default:
+                return false;
+        }
     }
 
     /// <summary>Walks an expression outside <c>compute</c>, where every aggregate is misplaced.</summary>

@@ -17,11 +17,20 @@ public static class RatioCatalog
         new ScanOverKernelRatio("length.scan_over_arrow", StringKernels.Length),
         new ScanOverKernelRatio("contains.scan_over_arrow", Contains),
         new StringBytesRatio(),
+        new ReshapeRatio(),
+        new LoadRatio("ipc", 50),
+        new LoadRatio("parquet", 2),
+        new ReferenceFrameRatio("filter", 3),
+        new ReferenceFrameRatio("groupsum", 3),
+        new ReferenceFrameRatio("sort", 5),
+        new ReferenceFrameRatio("join", 10),
+        new DiffRatio(),
+        new EndToEndRatio(),
     ];
 
     private static Parity.Engine.Columns.Column Contains(Parity.Engine.Columns.Column s, Mode mode) =>
-        StringKernels.Match(StringPredicate.Contains, s, Broadcast.Literal(Value.Of("xyz"), s.Length, mode), mode);
+        StringKernels.Match(StringPredicate.Contains, s, Value.Of("xyz"), mode);
 
     private static Parity.Engine.Columns.Column EqualsLiteral(Parity.Engine.Columns.Column s, Mode mode) =>
-        Comparison.Compare(ComparisonOp.Equal, s, Broadcast.Literal(Value.Of("abcdefghijklmno"), s.Length, mode), mode);
+        Comparison.Compare(ComparisonOp.Equal, s, Value.Of("abcdefghijklmno"), mode);
 }

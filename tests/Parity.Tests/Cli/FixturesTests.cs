@@ -37,6 +37,15 @@ public sealed class FixturesTests : IDisposable
     }
 
     [Fact]
+    public void Committed_set_is_what_the_generator_writes()
+    {
+        // docs/data.md: fixtures/harbor comes from --rows 400 --seed 7; regenerate it when the generator changes.
+        Assert.Equal(0, Run("fixtures", "--out", "h", "--rows", "400", "--seed", "7"));
+        foreach (var name in new[] { "tickets.csv", "sailings.parquet", "routes.arrow" })
+            Assert.True(File.ReadAllBytes(TestFiles.Fixture("harbor/" + name)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(_files.Dir, "h", name))), name + " differs from the generator's output");
+    }
+
+    [Fact]
     public void Committed_tickets_hold_every_script_and_refunds()
     {
         var t = DataLoader.Load(TestFiles.Fixture("harbor/tickets.csv"), LoadOptions.Default, Mode.Modern);

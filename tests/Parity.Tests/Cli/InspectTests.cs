@@ -95,6 +95,23 @@ public sealed class InspectTests : IDisposable
     }
 
     [Fact]
+    public void Csv_options_match_the_script_load_options()
+    {
+        var output = new StringWriter();
+        var code = CliApp.Run(["inspect", "raw_semicolon.csv", "--delimiter", ";", "--missing", "", "--missing", "n/a", "--json"],
+            new CliContext(output, new StringWriter(), TestFiles.Fixture("data")));
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output.ToString());
+        var age = doc.RootElement.GetProperty("columns")[2];
+        Assert.Equal("age", age.GetProperty("name").GetString());
+        Assert.Equal(2, age.GetProperty("missing").GetInt32()); // 'n/a' and ''
+        Assert.Equal("float64", age.GetProperty("types").GetProperty("legacy").GetString());
+    }
+
+    [Fact]
+    public void A_long_delimiter_is_a_usage_error() => Assert.Equal(2, Run("inspect", "x.csv", "--delimiter", ";;").Code);
+
+    [Fact]
     public void Control_characters_in_names_are_escaped()
     {
         _files.Write("ctl.csv", "\"a\u001b[31m\"\n1\n");

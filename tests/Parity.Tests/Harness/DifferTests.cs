@@ -252,4 +252,15 @@ public sealed class DifferTests
         Assert.Equal("int64", c.PerMode["modern"].Columns[1].Type);
         Assert.Equal("utf8", c.PerMode["modern"].Columns[0].Type);
     }
+
+    [Fact]
+    public void Type_labels_from_type_of_get_their_own_hint()
+    {
+        // Spec §2.2: type_of(c) gives 'object' under boxed and 'utf8' under arrow.
+        var a = Table(L, ("kind", [S("object"), S("object")]));
+        var b = Table(M, ("kind", [S("utf8"), S("utf8")]));
+        var f = Single(Diff(Run(L, ("t", a)), Run(M, ("t", b))), FindingKind.Value, "kind");
+        Assert.Equal(2, f.Count);
+        Assert.Equal(MigrationHints.TypeLabelValue, f.Hint);
+    }
 }

@@ -224,4 +224,34 @@ public sealed class GateCliTests : IDisposable
         Assert.Equal(1, exit);
         Assert.Contains("boxed+null+alias", output, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Frames_above_the_row_limit_are_stored_as_arrow_and_still_gate()
+    {
+        Assert.Equal(0, Cli("accept", "ferry", "--row-limit", "2").Exit);
+        var dir = Path.Combine(_dir, "golden", "ferry~refunds", "legacy");
+        Assert.True(File.Exists(Path.Combine(dir, "with%20labels.frame.arrow")));
+        Assert.Contains("sha256 ", File.ReadAllText(Path.Combine(dir, "with%20labels.frame.txt")), StringComparison.Ordinal);
+        Assert.Equal(0, Cli("check", "ferry", "--row-limit", "2").Exit);
+        Write("ferry/tickets.csv", Tickets.Replace("5,Bo,,20.0,late", "5,Bo,,21.0,late", StringComparison.Ordinal));
+        Assert.Equal(1, Cli("check", "ferry", "--row-limit", "2").Exit);
+    }
+
+    [Fact]
+    public void Data_values_cannot_drive_the_terminal_even_in_colour()
+    {
+        // A note holding an OSC "set window title" sequence (ECMA-48 control functions) must show as escapes.
+        Write("ferry/tickets.csv", Tickets.Replace("refund", "re\u001b]0;pwned\u0007fund", StringComparison.Ordinal));
+        // Spec §2.2: not (age < 18) keeps missing ages under nan and drops them under null, so rows differ.
+        Write("ferry/refunds.parity", "load tickets from 'tickets.csv'\nlet grown = tickets where not (age < 18)\ncheck grown\n");
+        var o = new StringWriter();
+        var e = new StringWriter();
+        var exit = CliApp.Run(["run", "ferry"], new CliContext(o, e, _dir) { Interactive = true });
+        Assert.Equal(1, exit);
+        var output = o.ToString();
+        Assert.Contains("\u001b[", output, StringComparison.Ordinal);        // colour is on
+        Assert.DoesNotContain("\u001b]0;", output, StringComparison.Ordinal); // but no data-driven sequence
+        Assert.DoesNotContain("\u0007", output, StringComparison.Ordinal);
+        Assert.Contains("pwned", output, StringComparison.Ordinal);
+    }
 }

@@ -20,7 +20,7 @@ public sealed class TerminalSummaryTests
         Assert.Equal("  type    line 4  checkpoint 'adults'  column 'age'  x1  new  column 'age' is float64 under legacy and int64 under modern", lines[1]);
         Assert.Contains("  missing line 4  checkpoint 'adults'  column 'age'  x2  accepted  missing ages print NaN under legacy and null under modern", lines);
         Assert.Contains("      row 3:  legacy NaN  |  modern null", lines);
-        Assert.Contains("      row -:  legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);
+        Assert.Contains("      legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);
         Assert.Contains("PASS  ferry/routes.parity  1 checkpoint, findings: none (1 resolved)", lines);
         Assert.Equal("failed: 2 scripts, findings: 1 type, 1 missing, 1 alias", lines[^2]);
     }

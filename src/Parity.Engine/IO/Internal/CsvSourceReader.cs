@@ -157,6 +157,7 @@ internal static class CsvSourceReader
 
     private static bool IsMissing(ReadOnlySpan<char> value, IReadOnlyList<string> tokens)
     {
+        if (tokens.Count == 1 && tokens[0].Length == 0) return value.IsEmpty; // the default
         for (var i = 0; i < tokens.Count; i++)
             if (value.SequenceEqual(tokens[i])) return true;
         return false;

@@ -170,47 +170,105 @@ internal static class ParquetSourceReader
         // A byte[] field with the file's column path makes Parquet.Net hand out raw UTF-8 slices.
         var raw = new DataField<byte[]>(f.Name, f.IsNullable);
         _ = new ParquetSchema(raw);
-        var offsets = new int[n + 1];
-        var bits = new byte[(n + 7) >> 3];
-        var data = new byte[Math.Max(16, n * 8)];
-        long bytes = 0;
-        var nulls = 0;
-        var row = 0;
-        var maxDef = f.MaxDefinitionLevel;
+        var sink = new Utf8Sink(n, f.MaxDefinitionLevel);
+        // One pair of slice and level arrays for every row group: fresh large arrays are slow to touch.
+        ReadOnlyMemory<byte>[] values = [];
+        int[] defs = [];
         for (var g = 0; g < reader.RowGroupCount; g++)
         {
             using var rg = reader.OpenRowGroupReader(g);
             var count = checked((int)rg.RowCount);
-            var values = new ReadOnlyMemory<byte>[count];
-            var defs = new int[count];
-            await rg.ReadRawAsync<ReadOnlyMemory<byte>>(raw, values, defs, null).ConfigureAwait(false);
+            if (values.Length < count)
+            {
+                values = new ReadOnlyMemory<byte>[count];
+                defs = new int[count];
+            }
+            await rg.ReadRawAsync<ReadOnlyMemory<byte>>(raw, values.AsMemory(0, count), defs.AsMemory(0, count), null).ConfigureAwait(false);
+            // Copied before the row group reader is disposed: the slices may point into its buffers.
+            if (!sink.Add(values, defs, count))
+                throw LoadThrow.Error(ErrorCodes.FileRead, display, $"column '{f.Name}' holds more than 2 GiB of text", sink.Rows + 1, col);
+        }
+        var bad = sink.FirstInvalidRow();
+        if (bad >= 0) throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{f.Name}' holds invalid UTF-8", bad + 1, col);
+        return new SourceStrings(f.Name, sink.Build(), nullIsNone: true);
+    }
+
+    /// <summary>
+    /// Raw UTF-8 values of one column, row group by row group, into the Arrow layout: one contiguous data
+    /// buffer (sized once from the first group's bytes per row) and int32 offsets written straight into
+    /// the Arrow offsets buffer.
+    /// </summary>
+    private sealed class Utf8Sink(int n, int maxDef)
+    {
+        private readonly byte[] _offsetBytes = new byte[((long)n + 1) * 4];
+        private readonly byte[] _bits = new byte[(n + 7) >> 3];
+        private byte[] _data = [];
+        private int _bytes;
+        private int _nulls;
+        private bool _splitStart;
+
+        public int Rows { get; private set; }
+
+        public bool Add(ReadOnlyMemory<byte>[] values, int[] defs, int count)
+        {
+            long groupBytes = 0;
+            var present = 0;
+            for (var i = 0; i < count; i++)
+            {
+                if (maxDef != 0 && defs[i] != maxDef) continue;
+                groupBytes += values[present++].Length;
+            }
+            if (_bytes + groupBytes > System.Array.MaxLength) return false;
+            if (_bytes + groupBytes > _data.Length)
+            {
+                var guess = Rows == 0 && count > 0 ? groupBytes * n / count + groupBytes / 16 + 64 : 0;
+                var size = Math.Min(System.Array.MaxLength, Math.Max(Math.Max(guess, _bytes + groupBytes), _data.Length * 2L));
+                var grown = GC.AllocateUninitializedArray<byte>((int)size);
+                _data.AsSpan(0, _bytes).CopyTo(grown);
+                _data = grown;
+            }
+            var offsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(_offsetBytes.AsSpan());
+            var dst = _data.AsSpan();
+            var at = _bytes;
+            var row = Rows;
             var k = 0;
             for (var i = 0; i < count; i++, row++)
             {
                 if (maxDef == 0 || defs[i] == maxDef)
                 {
                     var v = values[k++].Span;
-                    if (!System.Text.Unicode.Utf8.IsValid(v))
-                        throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{f.Name}' holds invalid UTF-8", row + 1, col);
-                    if (bytes + v.Length > int.MaxValue)
-                        throw LoadThrow.Error(ErrorCodes.FileRead, display, $"column '{f.Name}' holds more than 2 GiB of text", row + 1, col);
-                    if (bytes + v.Length > data.Length)
-                        System.Array.Resize(ref data, (int)Math.Min(System.Array.MaxLength, Math.Max(bytes + v.Length, data.Length * 2L)));
-                    v.CopyTo(data.AsSpan((int)bytes));
-                    bytes += v.Length;
-                    bits[row >> 3] |= (byte)(1 << (row & 7));
+                    if (v.Length > 0 && (v[0] & 0xC0) == 0x80) _splitStart = true;
+                    v.CopyTo(dst[at..]);
+                    at += v.Length;
+                    _bits[row >> 3] |= (byte)(1 << (row & 7));
                 }
                 else
                 {
-                    nulls++;
+                    _nulls++;
                 }
-                offsets[row + 1] = (int)bytes;
+                offsets[row + 1] = at;
             }
+            _bytes = at;
+            Rows = row;
+            return true;
         }
-        var offsetBytes = new byte[(n + 1) * 4];
-        System.Runtime.InteropServices.MemoryMarshal.AsBytes(offsets.AsSpan()).CopyTo(offsetBytes);
-        var array = new StringArray(n, new ArrowBuffer(offsetBytes), new ArrowBuffer(data.AsMemory(0, (int)bytes)),
-            nulls == 0 ? ArrowBuffer.Empty : new ArrowBuffer(bits), nulls);
-        return new SourceStrings(f.Name, array, nullIsNone: true);
+
+        /// <summary>
+        /// UTF-8 is checked once over the whole buffer (vectorised), plus that no value starts with a
+        /// continuation byte: then every value is whole code points (Unicode Standard §3.9, Table 3-7; UTF-8
+        /// is self-synchronising). Only a failure looks for the first bad row; -1 when all are valid.
+        /// </summary>
+        public int FirstInvalidRow()
+        {
+            if (!_splitStart && System.Text.Unicode.Utf8.IsValid(_data.AsSpan(0, _bytes))) return -1;
+            var offsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(_offsetBytes.AsSpan());
+            for (var r = 0; r < Rows; r++)
+                if (!System.Text.Unicode.Utf8.IsValid(_data.AsSpan(offsets[r], offsets[r + 1] - offsets[r]))) return r;
+            return 0; // unreachable: a concatenation of valid UTF-8 values is valid
+        }
+
+        public StringArray Build() =>
+            new(n, new ArrowBuffer(_offsetBytes), new ArrowBuffer(_data.AsMemory(0, _bytes)),
+                _nulls == 0 ? ArrowBuffer.Empty : new ArrowBuffer(_bits), _nulls);
     }
 }

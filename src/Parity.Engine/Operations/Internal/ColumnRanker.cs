@@ -96,7 +96,7 @@ internal static class ColumnRanker
             return new KeyRanks(ranks, 0, false);
         }
         var range = (ulong)max - (ulong)min;
-        if (range < (ulong)n * 2 + 1024)
+        if (range < (ulong)Math.Min((long)n * 2 + 1024, Array.MaxLength - 1))
         {
             // Dense range: a presence table indexed by value - min, no hashing at all.
             var table = new int[(int)range + 1];

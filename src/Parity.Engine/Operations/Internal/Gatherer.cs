@@ -17,33 +17,50 @@ internal static class Gatherer
         var data = column.Data;
         var array = column.Array;
         var anyNull = array.NullCount > 0;
+        // Pass 1 reads each source row's offsets once (the random access), writes the new offsets and keeps
+        // the source start; pass 2 copies bytes with sequential reads of those two arrays.
+        var newOffsets = new int[rows.Length + 1];
+        var from = GC.AllocateUninitializedArray<int>(rows.Length);
         long total = 0;
         var nulls = 0;
+        byte[]? bits = null;
         for (var i = 0; i < rows.Length; i++)
         {
             var r = rows[i];
-            if (r < 0 || (anyNull && array.IsNull(r))) { nulls++; continue; }
-            total += offsets[r + 1] - offsets[r];
-        }
-        if (total > Array.MaxLength) throw new InvalidOperationException("string data too large for one Arrow UTF-8 array");
-        var bytes = new byte[total];
-        var newOffsets = new int[rows.Length + 1];
-        var bits = nulls > 0 ? new byte[(rows.Length + 7) >> 3] : null;
-        var at = 0;
-        for (var i = 0; i < rows.Length; i++)
-        {
-            var r = rows[i];
-            if (r >= 0 && !(anyNull && array.IsNull(r)))
+            if (r < 0 || (anyNull && array.IsNull(r)))
+            {
+                nulls++;
+                bits ??= AllValidBits(rows.Length);
+                bits[i >> 3] &= (byte)~(1 << (i & 7));
+                from[i] = 0;
+            }
+            else
             {
                 var start = offsets[r];
-                var length = offsets[r + 1] - start;
-                data.Slice(start, length).CopyTo(bytes.AsSpan(at));
-                at += length;
-                if (bits is not null) bits[i >> 3] |= (byte)(1 << (i & 7));
+                from[i] = start;
+                total += offsets[r + 1] - start;
+                if (total > Array.MaxLength) throw new InvalidOperationException("string data too large for one Arrow UTF-8 array");
             }
-            newOffsets[i + 1] = at;
+            newOffsets[i + 1] = (int)total;
+        }
+        var bytes = GC.AllocateUninitializedArray<byte>((int)total);
+        var dst = bytes.AsSpan();
+        for (var i = 0; i < rows.Length; i++)
+        {
+            var at = newOffsets[i];
+            var length = newOffsets[i + 1] - at;
+            if (length != 0) data.Slice(from[i], length).CopyTo(dst[at..]);
         }
         var validity = bits is null ? Validity.AllValid(rows.Length) : new Validity(bits, 0, rows.Length);
         return Utf8ColumnBuilder.FromBuffers(newOffsets, bytes, validity, column.Marker, nulls);
+    }
+
+    /// <summary>A bitmap with every slot valid (clear bits are set as missing rows are met).</summary>
+    private static byte[] AllValidBits(int length)
+    {
+        var bits = new byte[(length + 7) >> 3];
+        bits.AsSpan().Fill(0xFF);
+        if ((length & 7) != 0) bits[^1] = (byte)((1 << (length & 7)) - 1);
+        return bits;
     }
 }

@@ -26,7 +26,7 @@ internal static class KeyCombiner
     public static int Densify(long[] acc, long card)
     {
         var n = acc.Length;
-        if (card <= (long)n * 2 + 1024)
+        if (card <= Math.Min((long)n * 2 + 1024, Array.MaxLength))
         {
             var table = new int[card];
             for (var i = 0; i < n; i++)

@@ -1,8 +1,8 @@
 namespace Parity.Engine.Operations.Internal;
 
 /// <summary>
-/// Dense ranks for many distinct numeric keys: an LSD radix sort (8 bits a pass, passes where every key has
-/// the same byte skipped) of order-preserving unsigned keys, then one scan. Used when hashing would be slower
+/// Dense ranks for many distinct numeric keys: an LSD radix sort (11 bits a pass, passes where every key has
+/// the same digit skipped) of order-preserving unsigned keys, then one scan. Used when hashing would be slower
 /// because nearly every value is distinct.
 /// </summary>
 internal static class RadixRanks
@@ -42,23 +42,143 @@ internal static class RadixRanks
         return next + 1;
     }
 
+    /// <summary>
+    /// Stable sort of the first <paramref name="count"/> (key, row) pairs for many keys, cache-friendly: a
+    /// range too large for the cache is split by one most-significant pass over the top 11 bits that vary in
+    /// it (2,048 buckets), recursively, so skewed keys (doubles sharing an exponent) still split; a range that
+    /// fits in cache is sorted by 8-bit LSD passes over its varying bits, and a tiny one by insertion sort.
+    /// Every step is stable, so equal keys keep their order.
+    /// </summary>
+    public static void SortLarge(ref ulong[] keys, ref int[] rows, int count)
+    {
+        if (count < InCache)
+        {
+            Sort(ref keys, ref rows, count);
+            return;
+        }
+        var sk = new ulong[count];
+        var sr = new int[count];
+        SortRange(keys, rows, sk, sr, 0, count, new int[256]);
+    }
+
+    /// <summary>Ranges up to this many pairs (12 bytes each) are sorted by LSD passes while they stay in cache.</summary>
+    private const int InCache = 1 << 16;
+
+    /// <summary>Sorts <c>k[from..from+n)</c> with its rows in place; <paramref name="sk"/>/<paramref name="sr"/> are scratch.</summary>
+    private static void SortRange(ulong[] k, int[] r, ulong[] sk, int[] sr, int from, int n, int[] hist)
+    {
+        if (n <= 32)
+        {
+            // Insertion sort: stable (moves only past strictly greater keys).
+            for (var i = from + 1; i < from + n; i++)
+            {
+                var v = k[i];
+                var row = r[i];
+                var j = i - 1;
+                while (j >= from && k[j] > v)
+                {
+                    k[j + 1] = k[j];
+                    r[j + 1] = r[j];
+                    j--;
+                }
+                k[j + 1] = v;
+                r[j + 1] = row;
+            }
+            return;
+        }
+        ulong any = 0, all = ulong.MaxValue;
+        for (var i = from; i < from + n; i++)
+        {
+            any |= k[i];
+            all &= k[i];
+        }
+        var varying = any ^ all;
+        if (varying == 0) return; // one key: already in order
+        var top = 63 - System.Numerics.BitOperations.LeadingZeroCount(varying);
+        if (n <= InCache)
+        {
+            LsdRange(k, r, sk, sr, from, n, varying, top, hist);
+            return;
+        }
+        const int TopBits = 11;
+        const int Buckets = 1 << TopBits;
+        var shift = Math.Max(0, top + 1 - TopBits);
+        var starts = new int[Buckets + 1];
+        for (var i = from; i < from + n; i++) starts[(int)((k[i] >> shift) & (Buckets - 1)) + 1]++;
+        starts[0] = from;
+        for (var d = 0; d < Buckets; d++) starts[d + 1] += starts[d];
+        var fill = starts.AsSpan(0, Buckets).ToArray();
+        for (var i = from; i < from + n; i++)
+        {
+            var v = k[i];
+            var pos = fill[(int)((v >> shift) & (Buckets - 1))]++;
+            sk[pos] = v;
+            sr[pos] = r[i];
+        }
+        Array.Copy(sk, from, k, from, n);
+        Array.Copy(sr, from, r, from, n);
+        if (shift == 0) return; // the digit held every varying bit
+        for (var d = 0; d < Buckets; d++)
+        {
+            var size = starts[d + 1] - starts[d];
+            if (size > 1) SortRange(k, r, sk, sr, starts[d], size, hist);
+        }
+    }
+
+    /// <summary>8-bit LSD passes over the varying bits of a range that fits in cache; the result ends in <paramref name="k"/>.</summary>
+    private static void LsdRange(ulong[] k, int[] r, ulong[] sk, int[] sr, int from, int n, ulong varying, int top, int[] hist)
+    {
+        var inScratch = false;
+        for (var shift = 0; shift <= top; shift += 8)
+        {
+            if (((varying >> shift) & 0xFF) == 0) continue;
+            var (srcK, srcR, dstK, dstR) = inScratch ? (sk, sr, k, r) : (k, r, sk, sr);
+            Array.Clear(hist);
+            for (var i = from; i < from + n; i++) hist[(int)((srcK[i] >> shift) & 0xFF)]++;
+            var sum = from;
+            for (var d = 0; d < 256; d++)
+            {
+                var c = hist[d];
+                hist[d] = sum;
+                sum += c;
+            }
+            for (var i = from; i < from + n; i++)
+            {
+                var v = srcK[i];
+                var pos = hist[(int)((v >> shift) & 0xFF)]++;
+                dstK[pos] = v;
+                dstR[pos] = srcR[i];
+            }
+            inScratch = !inScratch;
+        }
+        if (inScratch)
+        {
+            Array.Copy(sk, from, k, from, n);
+            Array.Copy(sr, from, r, from, n);
+        }
+    }
+
     /// <summary>Stable LSD radix sort of the first <paramref name="count"/> (key, row) pairs; the arrays may be swapped for scratch ones.</summary>
     public static void Sort(ref ulong[] keys, ref int[] rows, int count)
     {
-        var hist = new int[8 * 256];
+        // 11-bit digits: six passes cover 64 bits, and each histogram (2,048 counts) stays in L1.
+        const int Bits = 11;
+        const int Buckets = 1 << Bits;
+        const int Passes = 6;
+        var hist = new int[Passes * Buckets];
         for (var k = 0; k < count; k++)
         {
             var v = keys[k];
-            for (var b = 0; b < 8; b++) hist[(b << 8) + (int)((v >> (b << 3)) & 0xFF)]++;
+            for (var b = 0; b < Passes; b++) hist[(b * Buckets) + (int)((v >> (b * Bits)) & (Buckets - 1))]++;
         }
         ulong[]? tk = null;
         int[]? tr = null;
-        var offsets = new int[256];
-        for (var b = 0; b < 8; b++)
+        var offsets = new int[Buckets];
+        for (var b = 0; b < Passes; b++)
         {
-            var h = hist.AsSpan(b << 8, 256);
+            var h = hist.AsSpan(b * Buckets, Buckets);
             var trivial = false;
-            for (var d = 0; d < 256; d++)
+            for (var d = 0; d < Buckets; d++)
             {
                 if (h[d] == count) { trivial = true; break; }
                 if (h[d] != 0) break;
@@ -67,16 +187,16 @@ internal static class RadixRanks
             tk ??= new ulong[count];
             tr ??= new int[count];
             var sum = 0;
-            for (var d = 0; d < 256; d++)
+            for (var d = 0; d < Buckets; d++)
             {
                 offsets[d] = sum;
                 sum += h[d];
             }
-            var shift = b << 3;
+            var shift = b * Bits;
             for (var k = 0; k < count; k++)
             {
                 var v = keys[k];
-                var pos = offsets[(int)((v >> shift) & 0xFF)]++;
+                var pos = offsets[(int)((v >> shift) & (Buckets - 1))]++;
                 tk[pos] = v;
                 tr[pos] = rows[k];
             }

@@ -46,6 +46,18 @@ internal sealed partial class ScriptRun
                 var operand = Eval(isNull.Operand, scope);
                 return Logic.IsMissing(operand, isNull.Negated, _mode);
             }
+            case BinaryExpr b when ComparisonOf(b.Op) is { } cmp && (b.Right is LiteralExpr || b.Left is LiteralExpr):
+            {
+                // A literal operand stays a scalar: the kernel does not need a column of it.
+                if (b.Right is LiteralExpr rl)
+                {
+                    var left = Eval(b.Left, scope);
+                    return Kernel(b, () => Comparison.Compare(cmp, left, rl.Value, _mode));
+                }
+                var ll = (LiteralExpr)b.Left;
+                var right = Eval(b.Right, scope);
+                return Kernel(b, () => Comparison.Compare(cmp, ll.Value, right, _mode));
+            }
             case BinaryExpr b:
             {
                 var left = Eval(b.Left, scope);
@@ -59,6 +71,17 @@ internal sealed partial class ScriptRun
                 throw Error(ErrorCodes.Internal, "unknown expression", expr.Span);
         }
     }
+
+    private static ComparisonOp? ComparisonOf(BinaryOp op) => op switch
+    {
+        BinaryOp.Eq => ComparisonOp.Equal,
+        BinaryOp.Ne => ComparisonOp.NotEqual,
+        BinaryOp.Lt => ComparisonOp.Less,
+        BinaryOp.Le => ComparisonOp.LessOrEqual,
+        BinaryOp.Gt => ComparisonOp.Greater,
+        BinaryOp.Ge => ComparisonOp.GreaterOrEqual,
+        _ => null,
+    };
 
     private Column Binary(BinaryOp op, Column left, Column right) => op switch
     {
@@ -162,6 +185,11 @@ internal sealed partial class ScriptRun
             {
                 Arity(call, 2, 2);
                 var p = fn == "contains" ? StringPredicate.Contains : fn == "starts_with" ? StringPredicate.StartsWith : StringPredicate.EndsWith;
+                if (args[1] is LiteralExpr lit)
+                {
+                    var text = Eval(args[0], scope);
+                    return Kernel(call, () => StringKernels.Match(p, text, lit.Value, _mode));
+                }
                 var (s, pattern) = (Eval(args[0], scope), Eval(args[1], scope));
                 return Kernel(call, () => StringKernels.Match(p, s, pattern, _mode));
             }

@@ -48,7 +48,7 @@ public sealed class ScanOverKernelRatio : Ratio
         return total;
     }
 
-    private static long SumWords(ReadOnlySpan<byte> bytes)
+    public static long SumWords(ReadOnlySpan<byte> bytes)
     {
         var words = MemoryMarshal.Cast<byte, ulong>(bytes);
         var acc = Vector<ulong>.Zero;

@@ -30,6 +30,48 @@ public sealed class CsvLoaderTests : IDisposable
         Assert.Equal(ColumnType.Int64, t["id"].Type);
     }
 
+    // RFC 4180 §2, the examples of rules 1-7 (with a header row, rule 3).
+    [Theory]
+    [InlineData("aaa,bbb,ccc\r\nzzz,yyy,xxx\r\n", "zzz", "yyy")] // rule 1
+    [InlineData("aaa,bbb,ccc\r\nzzz,yyy,xxx", "zzz", "yyy")] // rule 2: no break after the last record
+    [InlineData("aaa,bbb,ccc\r\n zzz,yyy ,xxx\r\n", " zzz", "yyy ")] // rule 4: spaces are part of a field
+    [InlineData("aaa,bbb,ccc\r\n\"zzz\",\"yyy\",xxx\r\n", "zzz", "yyy")] // rule 5
+    [InlineData("aaa,bbb,ccc\r\n\"zzz\",\"y\r\nyy\",xxx\r\n", "zzz", "y\r\nyy")] // rule 6
+    [InlineData("aaa,bbb,ccc\r\n\"z,z\",\"y\"\"yy\",xxx\r\n", "z,z", "y\"yy")] // rules 6 and 7
+    public void Rfc4180_examples(string text, string first, string second)
+    {
+        var t = DataLoader.Load(_files.Write("r.csv", text), LoadOptions.Default, Mode.Legacy);
+        Assert.Equal(["aaa", "bbb", "ccc"], t.Names);
+        Assert.Equal(1, t.RowCount);
+        Assert.Equal(first, t["aaa"].GetValue(0).String);
+        Assert.Equal(second, t["bbb"].GetValue(0).String);
+        Assert.Equal("xxx", t["ccc"].GetValue(0).String);
+    }
+
+    [Fact]
+    public void Random_bytes_load_or_fail_with_a_located_error()
+    {
+        // Common practice, no source: a parser fed arbitrary input either succeeds or reports; it never crashes.
+        byte[] alphabet = [(byte)'a', (byte)'1', (byte)',', (byte)'"', (byte)'\n', (byte)'\r', (byte)' ', 0xC3, 0xA9, 0xFF, (byte)'.', (byte)'-'];
+        var rng = new Random(5);
+        for (var k = 0; k < 300; k++)
+        {
+            var bytes = new byte[rng.Next(0, 40)];
+            for (var i = 0; i < bytes.Length; i++) bytes[i] = alphabet[rng.Next(alphabet.Length)];
+            var path = _files.WriteBytes("f" + k + ".csv", bytes);
+            try
+            {
+                var t = DataLoader.Load(path, LoadOptions.Default, Mode.Legacy);
+                for (var c = 0; c < t.ColumnCount; c++)
+                    for (var r = 0; r < t.RowCount; r++) _ = t.Columns[c].GetValue(r);
+            }
+            catch (Parity.Engine.Errors.EngineException ex)
+            {
+                Assert.StartsWith("E-", ex.Code, StringComparison.Ordinal);
+            }
+        }
+    }
+
     [Fact]
     public void Reads_a_configured_delimiter_and_missing_tokens()
     {
@@ -79,7 +121,7 @@ public sealed class CsvLoaderTests : IDisposable
     public void Ints_turn_float_when_a_later_value_needs_it()
     {
         var lines = Enumerable.Range(0, 300).Select(i => i == 7 ? "" : (i * 3).ToString(System.Globalization.CultureInfo.InvariantCulture)).Append("0.5");
-        var path = _files.Write("t.csv", "a\n" + string.Join("\n", lines) + "\n");
+        var path = _files.Write("t.csv", "a,k\n" + string.Join(",x\n", lines) + ",x\n");
         var col = DataLoader.Load(path, LoadOptions.Default, Mode.Modern)["a"];
         Assert.Equal(ColumnType.Float64, col.Type);
         Assert.Equal(897.0, col.GetValue(299).Float64);

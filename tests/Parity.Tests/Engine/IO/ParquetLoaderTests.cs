@@ -73,6 +73,33 @@ public sealed class ParquetLoaderTests : IDisposable
     }
 
     [Fact]
+    public async Task Row_groups_are_concatenated_in_order()
+    {
+        var path = _files.PathOf("g.parquet");
+        var fId = new DataField<long?>("id");
+        var fText = new DataField<string>("s", true);
+        await using (var fs = File.Create(path))
+        {
+            await using var w = await ParquetWriter.CreateAsync(new ParquetSchema(fId, fText), fs);
+            for (var g = 0; g < 3; g++)
+            {
+                using var rg = w.CreateRowGroup();
+                var ids = Enumerable.Range(0, 500).Select(i => i % 7 == 0 ? (long?)null : g * 1000L + i).ToArray();
+                var texts = Enumerable.Range(0, 500).Select(i => i % 5 == 0 ? null! : $"g{g}-{i}-ü").ToArray();
+                await rg.WriteAsync<long>(fId, ids.AsMemory());
+                await rg.WriteAsync(fText, texts);
+            }
+        }
+        var t = DataLoader.Load(path, LoadOptions.Default, Mode.Modern);
+        Assert.Equal(1500, t.RowCount);
+        Assert.Equal(Value.Of(2001L), t["id"].GetValue(1001));
+        Assert.True(t["id"].IsMissing(1007));
+        Assert.Equal("g2-499-ü", t["s"].GetValue(1499).String);
+        Assert.True(t["s"].IsMissing(1005));
+        Assert.Equal(3 * 100, t["s"].MissingCount);
+    }
+
+    [Fact]
     public void Harbor_sailings_fixture_loads()
     {
         var t = DataLoader.Load(TestFiles.Fixture("harbor/sailings.parquet"), LoadOptions.Default, Mode.Modern);

@@ -1,3 +1,4 @@
+using FsCheck.Xunit;
 using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Modes;
@@ -216,5 +217,46 @@ public sealed class AggregationTests
         var modern = Aggregation.Aggregate(AggregateFunction.Min, modernInts, groups, Mode.Modern);
         Assert.Equal("int64", modern.TypeLabel);
         Assert.Equal([Value.Of(5L), Value.Null], Values(modern));
+    }
+
+    // Property: grouped count/sum/min/max/first/count_distinct equal a direct per-key computation that skips
+    // missing values (spec §2.2, §2.3), for string keys and int64 values with missing cells, in both presets.
+    [Property(MaxTest = 150)]
+    public bool Aggregates_match_a_reference(int[] raw, bool modern)
+    {
+        var mode = modern ? Mode.Modern : Mode.Legacy;
+        var keys = new object?[raw.Length];
+        var vals = new object?[raw.Length];
+        for (var i = 0; i < raw.Length; i++)
+        {
+            keys[i] = raw[i] % 7 == 0 ? null : "λ" + (raw[i] % 3).ToString(System.Globalization.CultureInfo.InvariantCulture);
+            vals[i] = raw[i] % 4 == 0 ? null : raw[i] / 3;
+        }
+        var t = Table(("k", Col(mode, keys)), ("v", Col(mode, vals)));
+        var g = Grouping.Group(t, ["k"]);
+        var sum = Values(Aggregation.Aggregate(AggregateFunction.Sum, t["v"], g, mode));
+        var min = Values(Aggregation.Aggregate(AggregateFunction.Min, t["v"], g, mode));
+        var max = Values(Aggregation.Aggregate(AggregateFunction.Max, t["v"], g, mode));
+        var first = Values(Aggregation.Aggregate(AggregateFunction.First, t["v"], g, mode));
+        var count = Values(Aggregation.Aggregate(AggregateFunction.Count, t["v"], g, mode));
+        var distinct = Values(Aggregation.Aggregate(AggregateFunction.CountDistinct, t["v"], g, mode));
+        var rows = Values(Aggregation.Aggregate(AggregateFunction.CountRows, null, g, mode));
+        var groupKeys = keys.Where(k => k is not null).Select(k => (string)k!).Distinct().Order(StringComparer.Ordinal).ToList();
+        if (g.GroupCount != groupKeys.Count) return false;
+        for (var gi = 0; gi < groupKeys.Count; gi++)
+        {
+            var members = Enumerable.Range(0, raw.Length).Where(i => (string?)keys[i] == groupKeys[gi]).ToList();
+            var present = members.Where(i => vals[i] is not null).Select(i => (long)(int)vals[i]!).ToList();
+            if (rows[gi].Int64 != members.Count || count[gi].Int64 != present.Count) return false;
+            if (distinct[gi].Int64 != present.Distinct().Count()) return false;
+            if (sum[gi].AsDouble != present.Sum()) return false;
+            if (present.Count == 0)
+            {
+                if (!min[gi].IsMissing || !max[gi].IsMissing || !first[gi].IsMissing) return false;
+                continue;
+            }
+            if (min[gi].AsDouble != present.Min() || max[gi].AsDouble != present.Max() || first[gi].AsDouble != present[0]) return false;
+        }
+        return true;
     }
 }

@@ -1,3 +1,4 @@
+using FsCheck.Xunit;
 using Parity.Engine.Modes;
 using Parity.Engine.Operations;
 using Parity.Engine.Values;
@@ -40,5 +41,25 @@ public sealed class DistinctTests
         var mode = Mode.Modern;
         var t = Table(("x", Col(mode, double.NaN, null, double.NaN, null, 0.0, -0.0)));
         Assert.Equal([0, 1, 4], Distinct.FirstRows(t, []));
+    }
+
+    // Property: distinct keeps exactly the first occurrence of each combination, in input order (spec §2.3).
+    [Property(MaxTest = 200)]
+    public bool First_rows_are_first_occurrences(int[] raw, bool modern)
+    {
+        var mode = modern ? Mode.Modern : Mode.Legacy;
+        var a = new object?[raw.Length];
+        var b = new object?[raw.Length];
+        for (var i = 0; i < raw.Length; i++)
+        {
+            a[i] = raw[i] % 4 == 0 ? null : "Ø" + (raw[i] % 3).ToString(System.Globalization.CultureInfo.InvariantCulture);
+            b[i] = raw[i] % 5 == 0 ? null : (raw[i] % 2) * 1.5;
+        }
+        var rows = Distinct.FirstRows(Table(("a", Col(mode, a)), ("b", Col(mode, b))), []);
+        var seen = new HashSet<(object?, object?)>();
+        var expected = new List<int>();
+        for (var i = 0; i < raw.Length; i++)
+            if (seen.Add((a[i], b[i]))) expected.Add(i);
+        return rows.SequenceEqual(expected);
     }
 }

@@ -1,3 +1,4 @@
+using FsCheck.Xunit;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
 using Parity.Engine.Modes;
@@ -122,5 +123,42 @@ public sealed class JoiningTests
         var right = Table(("at", Col(mode, day.AddHours(1), day)), ("refund", Col(mode, false, false)), ("boat", Col(mode, "b", "a")));
         Assert.Equal([Value.Of("a"), Value.Of("b")], Values(Joining.Join(left, right, "at", "at", false, mode, 10)["boat"]));
         Assert.Equal([Value.Of("b"), Value.Of("a")], Values(Joining.Join(left, right, "refund", "refund", false, mode, 10)["boat"]));
+    }
+
+    // Property: the hash join equals a nested-loop join (spec §2.3 row order; §2.2 missing keys match under
+    // nan only), inner and left, with int64 keys on the left and float64 keys (with missing) on the right.
+    [Property(MaxTest = 150)]
+    public bool Hash_join_equals_nested_loop_join(int[] l, int[] r, bool modern, bool leftOuter)
+    {
+        var mode = modern ? Mode.Modern : Mode.Legacy;
+        var lk = new object?[l.Length];
+        var lid = new object?[l.Length];
+        for (var i = 0; i < l.Length; i++) { lk[i] = l[i] % 6 == 0 ? null : l[i] % 4; lid[i] = i; }
+        var rk = new object?[r.Length];
+        var rid = new object?[r.Length];
+        for (var i = 0; i < r.Length; i++) { rk[i] = r[i] % 5 == 0 ? null : (double)(r[i] % 4); rid[i] = i; }
+        var left = Table(("k", Col(mode, lk)), ("id", Col(mode, lid)));
+        var right = Table(("rk", Col(mode, rk)), ("id", Col(mode, rid)));
+        var j = Joining.Join(left, right, "k", "rk", leftOuter, mode, 1_000_000);
+        var expected = new List<(long, long?)>();
+        for (var a = 0; a < l.Length; a++)
+        {
+            var matched = false;
+            for (var b = 0; b < r.Length; b++)
+            {
+                var bothMissing = lk[a] is null && rk[b] is null;
+                var equal = lk[a] is int x && rk[b] is double y && x == y;
+                if (equal || (bothMissing && mode.IsNan)) { expected.Add((a, b)); matched = true; }
+            }
+            if (!matched && leftOuter) expected.Add((a, null));
+        }
+        if (j.RowCount != expected.Count) return false;
+        for (var k = 0; k < expected.Count; k++)
+        {
+            if (j["id"].GetValue(k).Int64 != expected[k].Item1) return false;
+            var right2 = j["id_2"].GetValue(k);
+            if (expected[k].Item2 is long want ? right2.IsMissing || (long)right2.AsDouble != want : !right2.IsMissing) return false;
+        }
+        return true;
     }
 }

@@ -196,6 +196,23 @@ public sealed class ModeRuleTests
         }
     }
 
+    // Spec §2.3: avg is float64, count int64; expressions may stand around aggregates in compute (our decision, docs/language.md).
+    [Fact]
+    public void Compute_allows_expressions_around_aggregates()
+    {
+        foreach (var mode in new[] { Legacy, Modern })
+        {
+            var g = Harbor.Ok("let g = tickets group by sailing_id compute mean = round(avg(fare), 1), per_head = sum(fare) / count(), tag = text(sailing_id) || ':' || text(count())\ncheck g", mode).Check("g");
+            Assert.Equal(3, g.RowCount);
+            Assert.Equal("float64", g.Type("mean"));
+            Assert.Equal(Value.Of(18.2), g.Col("mean")[0]); // (24.5 + 12.0) / 2 = 18.25, half to even at one digit (IEEE 754 nearest: 18.2)
+            Assert.Equal(Value.Of(2.75), g.Col("per_head")[1]); // (30.0 - 24.5) / 2
+            Assert.Equal(Value.Of("12:1"), g.Col("tag")[2]);
+        }
+        // A non-key column outside an aggregate has no single value per group.
+        Harbor.Fails("let g = tickets group by sailing_id compute x = fare + count()", Modern, ErrorCodes.AggregatePlace);
+    }
+
     [Fact]
     public void Load_paths_stay_under_the_root()
     {
