@@ -33,7 +33,7 @@ public static class ArrowIpcWriter
 
     public static void Write(Table table, string path)
     {
-        var batch = ToRecordBatch(table);
+        var batch = ToRecordBatch(table.RowCount > BatchRows ? Slice(table, 0, BatchRows) : table);
         var full = Path.GetFullPath(path);
         var dir = Path.GetDirectoryName(full) ?? ".";
         Directory.CreateDirectory(dir);
@@ -44,6 +44,8 @@ public static class ArrowIpcWriter
             {
                 using var writer = new ArrowFileWriter(stream, batch.Schema, leaveOpen: true);
                 writer.WriteRecordBatch(batch);
+                for (var start = BatchRows; start < table.RowCount; start += BatchRows)
+                    writer.WriteRecordBatch(ToRecordBatch(Slice(table, start, Math.Min(BatchRows, table.RowCount - start))));
                 writer.WriteEnd();
                 stream.Flush(flushToDisk: true);
             }
@@ -53,6 +55,19 @@ public static class ArrowIpcWriter
         {
             if (File.Exists(temp)) File.Delete(temp);
         }
+    }
+
+    /// <summary>
+    /// Rows per record batch. A small table is one batch (the loader maps it without copying); a large one is
+    /// split so that no message body nears 2 GiB, which Apache.Arrow cannot address as one buffer.
+    /// </summary>
+    private const int BatchRows = 4_000_000;
+
+    private static Table Slice(Table table, int start, int rows)
+    {
+        var columns = new Column[table.ColumnCount];
+        for (var c = 0; c < columns.Length; c++) columns[c] = table.Columns[c].Slice(start, rows);
+        return new Table(table.Names, columns, rows);
     }
 
     /// <summary>The table as one Arrow record batch (the layout <see cref="Write"/> stores).</summary>

@@ -33,6 +33,7 @@ internal static class ArrowSourceReader
             throw LoadThrow.FileRead(display, ex.Message);
         }
         if (length == 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "the file is empty: not Arrow IPC");
+        if (length > int.MaxValue) return ReadStreamed(path, display);
         MappedMemory mapped;
         try
         {
@@ -59,21 +60,7 @@ internal static class ArrowSourceReader
                 CheckBatch(batch, display);
                 batches.Add(batch);
             }
-            var schema = reader.Schema ?? throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "no schema message");
-            var rows = 0L;
-            foreach (var b in batches) rows += b.Length;
-            if (rows > System.Array.MaxLength) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"{rows} rows are more than one table can hold");
-            var columns = new SourceColumn[schema.FieldsList.Count];
-            for (var c = 0; c < columns.Length; c++)
-            {
-                col = c + 1;
-                var field = schema.FieldsList[c];
-                var parts = new List<IArrowArray>(batches.Count);
-                foreach (var b in batches) parts.Add(b.Column(c));
-                IArrowArray array = parts.Count == 1 ? parts[0] : parts.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(parts);
-                columns[c] = Convert(field.Name, array, display, col);
-            }
-            return new SourceTable(columns, (int)rows);
+            return Assemble(reader.Schema, batches, display, ref col);
         }
         catch (EngineException)
         {
@@ -87,6 +74,68 @@ internal static class ArrowSourceReader
         {
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "cannot read as Arrow IPC: " + ex.Message, 0, col);
         }
+    }
+
+    /// <summary>
+    /// A file above 2 GiB cannot be mapped as one buffer (Memory&lt;byte&gt; has an int length): Apache.Arrow reads
+    /// it from a stream instead, each record batch into its own buffers. Our writer splits large tables into
+    /// batches well below 2 GiB. (The message pre-check needs the bytes in memory, so it is skipped here.)
+    /// </summary>
+    private static SourceTable ReadStreamed(string path, string display)
+    {
+        var col = 0;
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
+            Span<byte> head = stackalloc byte[6];
+            var file = stream.Read(head) == 6 && head.SequenceEqual(Magic.AsSpan(0, 6));
+            stream.Position = 0;
+            using var reader = file ? new ArrowFileReader(stream, leaveOpen: true) : new ArrowStreamReader(stream, leaveOpen: true);
+            var batches = new List<RecordBatch>();
+            RecordBatch? batch;
+            while ((batch = reader.ReadNextRecordBatch()) is not null)
+            {
+                CheckBatch(batch, display);
+                batches.Add(batch);
+            }
+            return Assemble(reader.Schema, batches, display, ref col);
+        }
+        catch (EngineException)
+        {
+            throw;
+        }
+        catch (OutOfMemoryException)
+        {
+            throw LoadThrow.OutOfMemory(display);
+        }
+        catch (IOException ex)
+        {
+            throw LoadThrow.FileRead(display, ex.Message);
+        }
+        catch (Exception ex)
+        {
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "cannot read as Arrow IPC: " + ex.Message, 0, col);
+        }
+    }
+
+    /// <summary>One source column per schema field, the batches of each concatenated (none: an empty array).</summary>
+    private static SourceTable Assemble(Schema? readSchema, List<RecordBatch> batches, string display, ref int col)
+    {
+        var schema = readSchema ?? throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "no schema message");
+        var rows = 0L;
+        foreach (var b in batches) rows += b.Length;
+        if (rows > System.Array.MaxLength) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"{rows} rows are more than one table can hold");
+        var columns = new SourceColumn[schema.FieldsList.Count];
+        for (var c = 0; c < columns.Length; c++)
+        {
+            col = c + 1;
+            var field = schema.FieldsList[c];
+            var parts = new List<IArrowArray>(batches.Count);
+            foreach (var b in batches) parts.Add(b.Column(c));
+            IArrowArray array = parts.Count == 1 ? parts[0] : parts.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(parts);
+            columns[c] = Convert(field.Name, array, display, col);
+        }
+        return new SourceTable(columns, (int)rows);
     }
 
     /// <summary>
