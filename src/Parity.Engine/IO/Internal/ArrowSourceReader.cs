@@ -81,7 +81,7 @@ internal static class ArrowSourceReader
     /// it from a stream instead, each record batch into its own buffers. Our writer splits large tables into
     /// batches well below 2 GiB. (The message pre-check needs the bytes in memory, so it is skipped here.)
     /// </summary>
-    private static SourceTable ReadStreamed(string path, string display)
+    internal static SourceTable ReadStreamed(string path, string display)
     {
         var col = 0;
         try
@@ -90,7 +90,7 @@ internal static class ArrowSourceReader
             Span<byte> head = stackalloc byte[6];
             var file = stream.Read(head) == 6 && head.SequenceEqual(Magic.AsSpan(0, 6));
             stream.Position = 0;
-            using var reader = file ? new ArrowFileReader(stream, leaveOpen: true) : new ArrowStreamReader(stream, leaveOpen: true);
+            using var reader = file ? new ArrowFileReader(stream, ManagedAllocator.Instance, leaveOpen: true) : new ArrowStreamReader(stream, ManagedAllocator.Instance, leaveOpen: true);
             var batches = new List<RecordBatch>();
             RecordBatch? batch;
             while ((batch = reader.ReadNextRecordBatch()) is not null)
@@ -132,7 +132,7 @@ internal static class ArrowSourceReader
             var field = schema.FieldsList[c];
             var parts = new List<IArrowArray>(batches.Count);
             foreach (var b in batches) parts.Add(b.Column(c));
-            IArrowArray array = parts.Count == 1 ? parts[0] : parts.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(parts);
+            IArrowArray array = parts.Count == 1 ? parts[0] : parts.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(parts, ManagedAllocator.Instance);
             columns[c] = Convert(field.Name, array, display, col);
         }
         return new SourceTable(columns, (int)rows);
