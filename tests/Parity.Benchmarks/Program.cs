@@ -7,10 +7,13 @@ internal static class Program
 {
     /// <summary>
     /// <c>quick [FILTER]</c>: the ratio mode (one <c>ratio NAME VALUE</c> line each, then a table);
+    /// <c>convert FILE.csv</c>: Arrow IPC and Parquet copies for the large-input measurements;
     /// anything else goes to BenchmarkDotNet's switcher (<c>--filter *LengthBench*</c>).
     /// </summary>
     private static int Main(string[] args)
     {
+        if (args.Length == 2 && args[0] == "convert")
+            return Data.WideConverter.Run(args[1]);
         if (args.Length > 0 && args[0] == "quick")
             return QuickRunner.Run(RatioCatalog.All(), Console.Out, args.Length > 1 ? args[1] : null);
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);

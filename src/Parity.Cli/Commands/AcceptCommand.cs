@@ -18,15 +18,17 @@ public static class AcceptCommand
         var modes = GateCommandCore.Modes();
         var tolerance = GateCommandCore.FloatTolerance();
         var rowLimit = GateCommandCore.RowLimit();
+        var limits = new RunLimitOptions();
         var command = new Command("accept", "Write or refresh the golden snapshots and accept the current cross-mode findings.")
         {
             scripts, golden, checkpoint, modes, tolerance, rowLimit,
         };
-        command.SetAction(p => Execute(context, p.GetValue(scripts) ?? [], p.GetValue(golden), p.GetValue(checkpoint), p.GetValue(modes), p.GetValue(tolerance), p.GetValue(rowLimit)));
+        limits.AddTo(command);
+        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : Execute(context, runOptions, p.GetValue(scripts) ?? [], p.GetValue(golden), p.GetValue(checkpoint), p.GetValue(modes), p.GetValue(tolerance), p.GetValue(rowLimit)));
         return command;
     }
 
-    private static int Execute(CliContext context, string[] scripts, string? golden, string? checkpoint, string? modesText, string? toleranceText, int? rowLimitValue)
+    private static int Execute(CliContext context, Script.Running.RunOptions runOptions, string[] scripts, string? golden, string? checkpoint, string? modesText, string? toleranceText, int? rowLimitValue)
     {
         if (!GateCommandCore.TryModes(context, modesText, out var modes)
             || !GateCommandCore.TryTolerance(context, toleranceText, out var tolerance)
@@ -40,7 +42,7 @@ public static class AcceptCommand
         var diff = DiffOptions.Default with { FloatTolerance = tolerance };
         foreach (var file in files)
         {
-            var outcome = GateRunner.RunScript(file, context.WorkingDirectory, modes);
+            var outcome = GateRunner.RunScript(file, context.WorkingDirectory, modes, runOptions);
             if (outcome.IsBadInput)
             {
                 foreach (var m in outcome.BadInputMessages) context.Error.WriteLine(m);

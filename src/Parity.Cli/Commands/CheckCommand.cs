@@ -14,12 +14,14 @@ public static class CheckCommand
         var format = GateCommandCore.Format();
         var tolerance = GateCommandCore.FloatTolerance();
         var rowLimit = GateCommandCore.RowLimit();
+        var limits = new RunLimitOptions();
         var command = new Command("check", "The CI gate: run, then compare every mode with its golden snapshots and the accepted findings.")
         {
             scripts, modes, golden, outDir, format, tolerance, rowLimit,
         };
-        command.SetAction(p => GateCommandCore.RunGate(context, "check", p.GetValue(scripts) ?? [], p.GetValue(modes), p.GetValue(golden),
-            p.GetValue(outDir), p.GetValue(format), p.GetValue(tolerance), p.GetValue(rowLimit), compareSnapshots: true));
+        limits.AddTo(command);
+        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : GateCommandCore.RunGate(context, "check", p.GetValue(scripts) ?? [], p.GetValue(modes), p.GetValue(golden),
+            p.GetValue(outDir), p.GetValue(format), p.GetValue(tolerance), p.GetValue(rowLimit), runOptions, compareSnapshots: true));
         return command;
     }
 }

@@ -90,7 +90,7 @@ internal static class GateCommandCore
 
     /// <summary>The loop of <c>run</c> and <c>check</c>: returns the exit code of spec §4.</summary>
     public static int RunGate(CliContext context, string command, string[] scripts, string? modesText, string? golden, string? outDir, string? formats,
-        string? toleranceText, int? rowLimitValue, bool compareSnapshots)
+        string? toleranceText, int? rowLimitValue, Script.Running.RunOptions runOptions, bool compareSnapshots)
     {
         if (!TryModes(context, modesText, out var modes)
             || !TryTolerance(context, toleranceText, out var tolerance)
@@ -108,7 +108,7 @@ internal static class GateCommandCore
         {
             if (context.Interactive && files.Count > 1)
                 context.Error.WriteLine("parity: " + (i + 1).ToString(CultureInfo.InvariantCulture) + "/" + files.Count.ToString(CultureInfo.InvariantCulture) + " " + ScriptFiles.Relative(files[i], context.WorkingDirectory));
-            var outcome = GateRunner.RunScript(files[i], context.WorkingDirectory, modes);
+            var outcome = GateRunner.RunScript(files[i], context.WorkingDirectory, modes, runOptions);
             if (outcome.IsBadInput)
             {
                 foreach (var m in outcome.BadInputMessages) context.Error.WriteLine(m);

@@ -12,12 +12,14 @@ public static class MatrixCommand
     {
         var script = new Argument<string>("SCRIPT") { Description = "The .parity script to run in all eight modes." };
         var tolerance = GateCommandCore.FloatTolerance();
+        var limits = new RunLimitOptions();
         var command = new Command("matrix", "Run a script in all eight modes and show which axis flip causes each finding.") { script, tolerance };
-        command.SetAction(p => Execute(context, p.GetValue(script) ?? "", p.GetValue(tolerance)));
+        limits.AddTo(command);
+        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : Execute(context, runOptions, p.GetValue(script) ?? "", p.GetValue(tolerance)));
         return command;
     }
 
-    private static int Execute(CliContext context, string script, string? toleranceText)
+    private static int Execute(CliContext context, Script.Running.RunOptions runOptions, string script, string? toleranceText)
     {
         if (!GateCommandCore.TryTolerance(context, toleranceText, out var tolerance)) return ExitCodes.BadInput;
         var errors = new List<string>();
@@ -28,7 +30,7 @@ public static class MatrixCommand
         var bad = false;
         foreach (var file in files)
         {
-            var outcome = GateRunner.RunScript(file, context.WorkingDirectory, Mode.All);
+            var outcome = GateRunner.RunScript(file, context.WorkingDirectory, Mode.All, runOptions);
             if (outcome.IsBadInput)
             {
                 foreach (var m in outcome.BadInputMessages) context.Error.WriteLine(m);

@@ -14,12 +14,14 @@ public static class RunCommand
         var format = GateCommandCore.Format();
         var tolerance = GateCommandCore.FloatTolerance();
         var rowLimit = GateCommandCore.RowLimit();
+        var limits = new RunLimitOptions();
         var command = new Command("run", "Run scripts under two modes and diff them; fails on a finding not accepted in the golden store.")
         {
             scripts, modes, golden, outDir, format, tolerance, rowLimit,
         };
-        command.SetAction(p => GateCommandCore.RunGate(context, "run", p.GetValue(scripts) ?? [], p.GetValue(modes), p.GetValue(golden),
-            p.GetValue(outDir), p.GetValue(format), p.GetValue(tolerance), p.GetValue(rowLimit), compareSnapshots: false));
+        limits.AddTo(command);
+        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : GateCommandCore.RunGate(context, "run", p.GetValue(scripts) ?? [], p.GetValue(modes), p.GetValue(golden),
+            p.GetValue(outDir), p.GetValue(format), p.GetValue(tolerance), p.GetValue(rowLimit), runOptions, compareSnapshots: false));
         return command;
     }
 }

@@ -15,9 +15,12 @@ public static class ShowCommand
         var checkpoint = new Option<string>("--checkpoint") { Description = "The checkpoint label to show.", Required = true };
         var mode = new Option<string>("--mode") { Description = "The mode to run: legacy, modern (default) or STRINGS+MISSING+WRITES." };
         var json = new Option<bool>("--json") { Description = "Print the frame as JSON instead of a table." };
+        var limits = new RunLimitOptions();
         var command = new Command("show", "Run a script in one mode and print one checkpoint's frame.") { script, checkpoint, mode, json };
-        command.SetAction(parse => Execute(
+        limits.AddTo(command);
+        command.SetAction(parse => !limits.TryGet(parse, context, out var runOptions) ? ExitCodes.BadInput : Execute(
             context,
+            runOptions,
             parse.GetValue(script) ?? "",
             parse.GetValue(checkpoint) ?? "",
             parse.GetValue(mode),
@@ -25,7 +28,7 @@ public static class ShowCommand
         return command;
     }
 
-    private static int Execute(CliContext context, string scriptArg, string label, string? modeText, bool json)
+    private static int Execute(CliContext context, RunOptions options, string scriptArg, string label, string? modeText, bool json)
     {
         var mode = Mode.Modern;
         if (modeText is not null && !Mode.TryParse(modeText, out mode))
@@ -41,7 +44,6 @@ public static class ShowCommand
         }
         var shown = Path.GetRelativePath(context.WorkingDirectory, path).Replace('\\', '/');
         var text = File.ReadAllText(path);
-        var options = RunOptions.Default with { Root = context.WorkingDirectory };
         var result = CheckpointShow.Run(text, shown, label, mode, Path.GetDirectoryName(path) ?? context.WorkingDirectory, options);
         foreach (var message in result.Messages)
             context.Error.WriteLine(message);

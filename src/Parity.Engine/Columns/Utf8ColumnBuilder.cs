@@ -118,7 +118,20 @@ public sealed class Utf8ColumnBuilder
 
     private void EnsureBytes(int extra)
     {
-        if (_bytes + extra > _data.Length)
-            System.Array.Resize(ref _data, Math.Max(_data.Length * 2, _bytes + extra));
+        var need = (long)_bytes + extra;
+        if (need <= _data.Length) return;
+        var grown = Math.Min(Math.Max(2L * _data.Length, need), System.Array.MaxLength);
+        System.Array.Resize(ref _data, CheckedSize(Math.Max(grown, need)));
+    }
+
+    /// <summary>
+    /// A byte count that fits one Arrow UTF-8 array, or E-LIMIT: its offsets are 32-bit (Apache Arrow columnar
+    /// format, variable-size binary layout), so one column holds at most about 2 GiB of text.
+    /// </summary>
+    public static int CheckedSize(long bytes)
+    {
+        if (bytes <= System.Array.MaxLength) return (int)bytes;
+        throw new Errors.EngineException(Errors.ErrorCodes.Limit, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+            $"a string column would hold {bytes} bytes of UTF-8 text, more than the {System.Array.MaxLength} bytes one column can hold (32-bit offsets); use fewer or shorter strings"));
     }
 }

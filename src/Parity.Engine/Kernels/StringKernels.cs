@@ -144,8 +144,16 @@ public static partial class StringKernels
                 var rest = text;
                 var first = rest.IndexOf(find);
                 if (first < 0) { b.Append(text); continue; }
-                var max = text.Length + (text.Length / find.Length + 1) * with.Length;
-                var dst = b.Reserve(max);
+                // Exact size first: a worst-case estimate overflows int for long replacements.
+                long hits = 0;
+                for (var scan = text; ;)
+                {
+                    var at = scan.IndexOf(find);
+                    if (at < 0) break;
+                    hits++;
+                    scan = scan[(at + find.Length)..];
+                }
+                var dst = b.Reserve(Utf8ColumnBuilder.CheckedSize(text.Length + hits * (with.Length - find.Length)));
                 var w = 0;
                 for (var at = first; at >= 0; at = rest.IndexOf(find))
                 {

@@ -12,7 +12,11 @@ namespace Parity.Harness.Running;
 public static class GateRunner
 {
     /// <summary>Parses <paramref name="fullPath"/> and runs it once per mode; parse errors stop before running.</summary>
-    public static ScriptOutcome RunScript(string fullPath, string workingDirectory, IReadOnlyList<Mode> modes)
+    public static ScriptOutcome RunScript(string fullPath, string workingDirectory, IReadOnlyList<Mode> modes) =>
+        RunScript(fullPath, workingDirectory, modes, RunOptions.Default with { Root = workingDirectory });
+
+    /// <summary>As above with the interpreter's limits and root rule from <paramref name="options"/>.</summary>
+    public static ScriptOutcome RunScript(string fullPath, string workingDirectory, IReadOnlyList<Mode> modes, RunOptions options)
     {
         var shown = ScriptFiles.Relative(fullPath, workingDirectory);
         var text = File.ReadAllText(fullPath);
@@ -24,7 +28,6 @@ public static class GateRunner
                 if (d.Severity == Severity.Error) errors.Add(d);
             return new ScriptOutcome { Script = shown, ParseErrors = errors };
         }
-        var options = RunOptions.Default with { Root = workingDirectory };
         var dir = Path.GetDirectoryName(fullPath) ?? workingDirectory;
         var runs = new List<ModeRun>(modes.Count);
         foreach (var mode in modes) runs.Add(Interpreter.Run(parsed.Script, mode, dir, options));

@@ -49,10 +49,16 @@ internal static class ArrowSourceReader
             var start = memory.Span.StartsWith(Magic) ? 8 : 0;
             if (start == 8 && length < 8 + 4)
                 throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "the file is truncated after its header");
+            if (ArrowIpcPrecheck.Check(memory.Span[start..], start == 8) is { } corrupt)
+                throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "not a sound Arrow IPC file: " + corrupt);
             using var reader = new ArrowStreamReader((ReadOnlyMemory<byte>)memory[start..]);
             var batches = new List<RecordBatch>();
             RecordBatch? batch;
-            while ((batch = reader.ReadNextRecordBatch()) is not null) batches.Add(batch);
+            while ((batch = reader.ReadNextRecordBatch()) is not null)
+            {
+                CheckBatch(batch, display);
+                batches.Add(batch);
+            }
             var schema = reader.Schema ?? throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "no schema message");
             var rows = 0L;
             foreach (var b in batches) rows += b.Length;
@@ -77,6 +83,54 @@ internal static class ArrowSourceReader
         {
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "cannot read as Arrow IPC: " + ex.Message, 0, col);
         }
+    }
+
+    /// <summary>
+    /// Rejects a batch whose lengths do not fit its buffers before anything is allocated from them: a corrupted
+    /// length field would otherwise make the converters allocate arrays of that length (up to gigabytes) from a
+    /// file of a few bytes. Apache Arrow columnar format: every column of a record batch has the batch's length;
+    /// a fixed-width value buffer holds (offset + length) values, a validity bitmap one bit per slot, an offsets
+    /// buffer (offset + length + 1) 32-bit entries.
+    /// </summary>
+    private static void CheckBatch(RecordBatch batch, string display)
+    {
+        for (var c = 0; c < batch.ColumnCount; c++)
+        {
+            var data = batch.Column(c).Data;
+            if (data.Length != batch.Length)
+                throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column {c + 1} has {data.Length} rows in a record batch of {batch.Length}", 0, c + 1);
+            CheckData(data, display, c + 1);
+        }
+    }
+
+    private static void CheckData(ArrayData data, string display, int col)
+    {
+        if (data.Length < 0 || data.Offset < 0 || data.NullCount > data.Length)
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "negative array length or offset", 0, col);
+        var slots = (long)data.Offset + data.Length;
+        long? valueBytes = data.DataType switch
+        {
+            FixedWidthType f when data.DataType.TypeId != ArrowTypeId.Boolean => slots * ((f.BitWidth + 7) / 8),
+            BooleanType => (slots + 7) / 8,
+            StringType or BinaryType => (slots + 1) * 4,
+            _ => null,
+        };
+        if (data.NullCount > 0 && data.Buffers.Length > 0 && !data.Buffers[0].IsEmpty && data.Buffers[0].Length < (slots + 7) / 8)
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "validity bitmap shorter than the array", 0, col);
+        if (valueBytes is { } need && (data.Buffers.Length < 2 || data.Buffers[1].Length < need) && data.Length > 0)
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "value buffer shorter than the array", 0, col);
+        if (data.DataType is StringType or BinaryType && data.Length > 0)
+        {
+            var offsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(data.Buffers[1].Span);
+            var first = offsets[data.Offset];
+            var last = offsets[(int)slots];
+            var bytes = data.Buffers.Length > 2 ? data.Buffers[2].Length : 0;
+            if (first < 0 || last < first || last > bytes)
+                throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "string offsets point outside the data buffer", 0, col);
+        }
+        if (data.Dictionary is not null) CheckData(data.Dictionary, display, col);
+        if (data.Children is { } children)
+            foreach (var child in children) CheckData(child, display, col);
     }
 
     private static IArrowArray EmptyOf(IArrowType type, string display, int col) => type.TypeId switch

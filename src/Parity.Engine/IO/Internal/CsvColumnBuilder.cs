@@ -10,14 +10,21 @@ namespace Parity.Engine.IO.Internal;
 /// which types every non-missing field still fits, in the order of spec §6: int64, float64, bool, ISO 8601
 /// timestamp, else string. <see cref="Finish"/> parses the bytes into the winning type; a string column keeps
 /// the bytes as they are, so arrow storage never goes through managed strings.
+/// <para>
+/// While a column may still be a number its text is not kept (the parsed numbers are): on a wide numeric file
+/// the text and offsets of every cell were most of the loader's peak memory. A column that stops being a
+/// number after some of its values went by without text reports <see cref="NeedsText"/>, and the reader
+/// fills it again in a second pass with a text-only builder.
+/// </para>
 /// </summary>
 internal sealed class CsvColumnBuilder
 {
     internal const NumberStyles IntegerStyle = NumberStyles.AllowLeadingSign;
     internal const NumberStyles FloatStyle = NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint | NumberStyles.AllowExponent;
 
-    private byte[] _data = new byte[256];
-    private int[] _offsets = new int[65];
+    private byte[] _data = [];
+    private int[] _offsets = [];
+    private bool _storingText;
     private byte[] _valid = new byte[8];
     private int _count;
     private long _bytes;
@@ -28,17 +35,58 @@ internal sealed class CsvColumnBuilder
     private long[]? _ints = new long[65];
     private double[]? _floats;
 
-    public CsvColumnBuilder(string name)
+    public CsvColumnBuilder(string name, bool textOnly = false)
     {
         Name = name;
+        if (textOnly)
+        {
+            // Read again because the first pass ruled out int64 (as text or as a float beyond 2^53): it may
+            // still be float64, so floats are parsed from the text kept this time.
+            _canInt = false;
+            _ints = null;
+            _floats = new double[_slots];
+            StartText();
+        }
     }
 
     public string Name { get; }
+
+    /// <summary>True when the column turned out not to be numeric after values whose text was not kept.</summary>
+    public bool NeedsText { get; private set; }
+
+    private void StartText()
+    {
+        // Every earlier cell is missing (or there is none): their slots are empty strings at offset 0.
+        _storingText = true;
+        _data = new byte[256];
+        _offsets = new int[Math.Max(_slots, 65)];
+    }
 
     /// <summary>Appends a field's value; false when the column's text passed 2 GiB (int32 Arrow offsets).</summary>
     public bool Append(ReadOnlySpan<char> value)
     {
         Infer(value);
+        if (!_storingText)
+        {
+            if (_canInt || _canFloat || NeedsText)
+            {
+                EnsureSlot();
+                _valid[_count >> 3] |= (byte)(1 << (_count & 7));
+                _count++;
+                return true;
+            }
+            if (_nulls < _count)
+            {
+                // Values went by without their text: the reader reads this column again.
+                NeedsText = true;
+                _ints = null;
+                _floats = null;
+                EnsureSlot();
+                _count++;
+                return true;
+            }
+            StartText();
+        }
         var max = Encoding.UTF8.GetMaxByteCount(value.Length);
         if (_bytes + max > _data.Length)
         {
@@ -60,13 +108,14 @@ internal sealed class CsvColumnBuilder
         EnsureSlot();
         _nulls++;
         _count++;
-        _offsets[_count] = (int)_bytes;
+        if (_storingText) _offsets[_count] = (int)_bytes;
     }
 
     // A value that parses as a number can be neither a bool nor a timestamp (and an int is also a float),
     // so each value rules out the kinds it cannot be and the column keeps the first kind all values fit.
     private void Infer(ReadOnlySpan<char> v)
     {
+        if (NeedsText) return;
         if (_canInt)
         {
             if (long.TryParse(v, IntegerStyle, CultureInfo.InvariantCulture, out var l))
@@ -77,8 +126,8 @@ internal sealed class CsvColumnBuilder
                 return;
             }
             _canInt = false;
+            if (_canFloat) FloatsFromInts();
             _ints = null;
-            if (_canFloat) FloatsFromText();
         }
         if (_canFloat)
         {
@@ -101,29 +150,48 @@ internal sealed class CsvColumnBuilder
         if (_canTime && !Iso8601.TryParse(v, out _)) _canTime = false;
     }
 
-    // The column stopped being int64: parse the cells so far from their text (exact, unlike a long-to-double cast above 2^53).
-    private void FloatsFromText()
+    // The column stopped being int64: the integers so far become doubles. A long-to-double cast is exact up
+    // to 2^53; a larger integer needs its text, so the column is read again.
+    private void FloatsFromInts()
     {
-        _floats = new double[_offsets.Length];
+        _floats = new double[Math.Max(_slots, 65)];
+        var ints = _ints ?? [];
         for (var i = 0; i < _count; i++)
-            _floats[i] = IsValidSoFar(i) ? double.Parse(Cell(i), FloatStyle, CultureInfo.InvariantCulture) : double.NaN;
+        {
+            if (!IsValidSoFar(i)) { _floats[i] = double.NaN; continue; }
+            var l = i < ints.Length ? ints[i] : 0;
+            if (l > (1L << 53) || l < -(1L << 53))
+            {
+                NeedsText = true;
+                _canFloat = false;
+                _floats = null;
+                return;
+            }
+            _floats[i] = l;
+        }
     }
 
     private bool IsValidSoFar(int i) => (_valid[i >> 3] & (1 << (i & 7))) != 0;
 
+    // Slots allocated for per-row arrays (offsets when text is kept, parsed numbers while numeric).
+    private int _slots = 65;
+
     private void EnsureSlot()
     {
-        if (_count + 2 > _offsets.Length)
+        if (_count + 2 > _slots)
         {
-            System.Array.Resize(ref _offsets, _offsets.Length * 2);
-            if (_ints is not null) System.Array.Resize(ref _ints, _offsets.Length);
-            if (_floats is not null) System.Array.Resize(ref _floats, _offsets.Length);
+            _slots *= 2;
+            if (_storingText) System.Array.Resize(ref _offsets, _slots);
+            if (_ints is not null) System.Array.Resize(ref _ints, _slots);
+            if (_floats is not null) System.Array.Resize(ref _floats, _slots);
         }
+        if (_storingText && _offsets.Length < _slots) System.Array.Resize(ref _offsets, _slots);
         if ((_count >> 3) >= _valid.Length) System.Array.Resize(ref _valid, _valid.Length * 2);
     }
 
     public SourceColumn Finish()
     {
+        if (NeedsText) throw new InvalidOperationException("column '" + Name + "' needs a second pass for its text");
         var n = _count;
         var validity = _nulls == 0 ? Validity.AllValid(n) : new Validity(_valid, 0, n);
         var hasValue = _nulls < n;
@@ -144,6 +212,7 @@ internal sealed class CsvColumnBuilder
         }
         if (n > 0 && _canBool) return new SourceBool(Name, ParseBools(validity), validity);
         if (n > 0 && _canTime) return new SourceTimestamp(Name, ParseTimes(validity), validity);
+        if (!_storingText) StartText(); // no rows: an empty string column
         var offsetBytes = new byte[(n + 1) * 4];
         System.Runtime.InteropServices.MemoryMarshal.AsBytes(_offsets.AsSpan(0, n + 1)).CopyTo(offsetBytes);
         var bitmap = _nulls == 0 ? ArrowBuffer.Empty : new ArrowBuffer(_valid.AsMemory(0, (n + 7) >> 3));

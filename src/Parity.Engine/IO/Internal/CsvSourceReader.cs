@@ -32,7 +32,28 @@ internal static class CsvSourceReader
         using var text = new StreamReader(stream, new UTF8Encoding(encoderShouldEmitUTF8Identifier: true, throwOnInvalidBytes: true), detectEncodingFromByteOrderMarks: false, 1 << 16);
         try
         {
-            return ReadRows(text, display, options.Delimiter, tokens);
+            var (columns, rows) = ReadRows(text, display, options.Delimiter, tokens, null);
+            bool[]? again = null;
+            for (var c = 0; c < columns.Length; c++)
+            {
+                if (!columns[c].NeedsText) continue;
+                again ??= new bool[columns.Length];
+                again[c] = true;
+            }
+            if (again is not null)
+            {
+                // Second pass: only the columns that stopped being numbers, text kept from the first row.
+                using var stream2 = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+                using var text2 = new StreamReader(stream2, new UTF8Encoding(encoderShouldEmitUTF8Identifier: true, throwOnInvalidBytes: true), detectEncodingFromByteOrderMarks: false, 1 << 16);
+                var (filled, rows2) = ReadRows(text2, display, options.Delimiter, tokens, again);
+                if (rows2 != rows || filled.Length != columns.Length)
+                    throw LoadThrow.FileRead(display, "the file changed while it was being read");
+                for (var c = 0; c < columns.Length; c++)
+                    if (again[c]) columns[c] = filled[c];
+            }
+            var result = new SourceColumn[columns.Length];
+            for (var c = 0; c < columns.Length; c++) result[c] = columns[c].Finish();
+            return new SourceTable(result, rows);
         }
         catch (EngineException)
         {
@@ -53,7 +74,8 @@ internal static class CsvSourceReader
         }
     }
 
-    private static SourceTable ReadRows(TextReader text, string display, char delimiter, IReadOnlyList<string> tokens)
+    /// <summary>Reads every record; with <paramref name="only"/>, fills just those columns, as text.</summary>
+    private static (CsvColumnBuilder[] Columns, int Rows) ReadRows(TextReader text, string display, char delimiter, IReadOnlyList<string> tokens, bool[]? only)
     {
         SepReaderOptions sepOptions;
         try
@@ -76,7 +98,7 @@ internal static class CsvSourceReader
             if (row.Span.IsEmpty) continue; // a blank line is no record
             if (columns is null)
             {
-                columns = ReadHeader(row, rowLine, display, ref scratch);
+                columns = ReadHeader(row, rowLine, display, ref scratch, only);
                 continue;
             }
             if (row.ColCount != columns.Length)
@@ -87,6 +109,7 @@ internal static class CsvSourceReader
             }
             for (var c = 0; c < columns.Length; c++)
             {
+                if (only is not null && (c >= only.Length || !only[c])) continue;
                 var value = Unquote(row[c].Span, ref scratch, display, rowLine, c + 1);
                 if (IsMissing(value, tokens))
                     columns[c].AppendMissing();
@@ -97,12 +120,10 @@ internal static class CsvSourceReader
         }
         if (columns is null)
             throw LoadThrow.Error(ErrorCodes.CsvHeader, display, "the file is empty: a header row is required", 1, 0);
-        var result = new SourceColumn[columns.Length];
-        for (var c = 0; c < columns.Length; c++) result[c] = columns[c].Finish();
-        return new SourceTable(result, rows);
+        return (columns, rows);
     }
 
-    private static CsvColumnBuilder[] ReadHeader(nietras.SeparatedValues.SepReader.Row row, int line, string display, ref char[] scratch)
+    private static CsvColumnBuilder[] ReadHeader(nietras.SeparatedValues.SepReader.Row row, int line, string display, ref char[] scratch, bool[]? textOnly)
     {
         var columns = new CsvColumnBuilder[row.ColCount];
         var seen = new HashSet<string>(StringComparer.Ordinal);
@@ -113,7 +134,7 @@ internal static class CsvSourceReader
                 throw LoadThrow.Error(ErrorCodes.CsvHeader, display, $"header field {c + 1} is empty: every column needs a name", line, c + 1);
             if (!seen.Add(name))
                 throw LoadThrow.Error(ErrorCodes.CsvHeader, display, $"duplicate column name '{name}' in the header", line, c + 1);
-            columns[c] = new CsvColumnBuilder(name);
+            columns[c] = new CsvColumnBuilder(name, textOnly is not null && c < textOnly.Length && textOnly[c]);
         }
         return columns;
     }

@@ -62,6 +62,7 @@ internal sealed partial class ScriptRun
             {
                 var left = Eval(b.Left, scope);
                 var right = Eval(b.Right, scope);
+                if (b.Op == BinaryOp.Concat) Kernel(b, () => { StringBudget.CheckConcat(left, right, _options.MaxStringBytes); return 0; });
                 return Kernel(b, () => Binary(b.Op, left, right));
             }
             case CallExpr call:
@@ -152,13 +153,15 @@ internal sealed partial class ScriptRun
                 input = Eval(args[0], new Scope(scope.Table, scope.FrameName));
             }
             var groups = scope.Groups;
-            return Kernel(call, () => Aggregation.Aggregate(agg, input, groups, _mode));
+            var aggregated = Kernel(call, () => Aggregation.Aggregate(agg, input, groups, _mode));
+            if (agg == AggregateFunction.Sum) Kernel(call, () => { StringBudget.CheckResult(aggregated, _options.MaxStringBytes, "sum"); return 0; });
+            return aggregated;
         }
         switch (fn)
         {
             case "length": Arity(call, 1, 1); return Unary(call, scope, StringKernels.Length);
-            case "upper": Arity(call, 1, 1); return Unary(call, scope, StringKernels.Upper);
-            case "lower": Arity(call, 1, 1); return Unary(call, scope, StringKernels.Lower);
+            case "upper": Arity(call, 1, 1); return Checked(call, Unary(call, scope, StringKernels.Upper));
+            case "lower": Arity(call, 1, 1); return Checked(call, Unary(call, scope, StringKernels.Lower));
             case "trim": Arity(call, 1, 1); return Unary(call, scope, StringKernels.Trim);
             case "text": Arity(call, 1, 1); return Unary(call, scope, Casts.Text);
             case "abs": Arity(call, 1, 1); return Unary(call, scope, Functions.Abs);
@@ -173,6 +176,7 @@ internal sealed partial class ScriptRun
             {
                 Arity(call, 3, 3);
                 var (s, a, b) = (Eval(args[0], scope), Eval(args[1], scope), Eval(args[2], scope));
+                Kernel(call, () => { StringBudget.CheckReplace(s, a, b, _options.MaxStringBytes); return 0; });
                 return Kernel(call, () => StringKernels.Replace(s, a, b, _mode));
             }
             case "contains":
@@ -218,6 +222,13 @@ internal sealed partial class ScriptRun
     {
         var x = Eval(call.Args[0], scope);
         return Kernel(call, () => kernel(x, _mode));
+    }
+
+    /// <summary>Case mapping can lengthen a string (Unicode full case mappings), so its result is measured.</summary>
+    private Column Checked(CallExpr call, Column result)
+    {
+        Kernel(call, () => { StringBudget.CheckResult(result, _options.MaxStringBytes, call.Function.Name.ToLowerInvariant()); return 0; });
+        return result;
     }
 
     private void Arity(CallExpr call, int min, int max)

@@ -120,13 +120,28 @@ internal sealed partial class ScriptRun
 
     private string ResolvePath(LoadStatement load)
     {
-        var full = Path.GetFullPath(Path.Combine(_directory, load.Path));
+        string full;
+        try
+        {
+            full = Path.GetFullPath(Path.Combine(_directory, load.Path));
+        }
+        catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
+        {
+            throw Error(ErrorCodes.FileRead, $"'{load.Path}' is not a valid path: {e.Message}", load.PathSpan);
+        }
         if (_options.AllowOutsideRoot) return full;
         var root = Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
-        var rootWithSep = Path.EndsInDirectorySeparator(root) ? root : root + Path.DirectorySeparatorChar;
+        // Symbolic links count where they lead: compare the final paths of both.
+        var real = RealPath.Resolve(full);
+        var realRoot = RealPath.Resolve(Path.TrimEndingDirectorySeparator(root));
+        var rootWithSep = Path.EndsInDirectorySeparator(realRoot) ? realRoot : realRoot + Path.DirectorySeparatorChar;
         var comparison = OperatingSystem.IsWindows() ? StringComparison.OrdinalIgnoreCase : StringComparison.Ordinal;
-        if (!full.StartsWith(rootWithSep, comparison) && !string.Equals(full, root, comparison))
-            throw Error(ErrorCodes.PathOutsideRoot, $"path '{full}' is outside the root folder '{root}' (allow it explicitly to load it)", load.PathSpan);
+        if (!real.StartsWith(rootWithSep, comparison) && !string.Equals(real, realRoot, comparison))
+        {
+            var via = string.Equals(real, full, comparison) ? "" : $" (through a symbolic link to '{real}')";
+            throw Error(ErrorCodes.PathOutsideRoot, $"path '{load.Path}' resolves to '{full}'{via}, outside the project root '{root}'; "
+                + "pass --root DIR to widen the root or --allow-outside-root to allow it", load.PathSpan);
+        }
         return full;
     }
 

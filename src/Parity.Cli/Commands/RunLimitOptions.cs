@@ -1,0 +1,83 @@
+using System.CommandLine;
+using System.Globalization;
+using Parity.Engine.Errors;
+using Parity.Script.Running;
+
+namespace Parity.Cli.Commands;
+
+/// <summary>
+/// The interpreter's safety settings, shared by every command that runs scripts: <c>--max-rows</c>,
+/// <c>--max-string-bytes</c>, <c>--root</c> and <c>--allow-outside-root</c> (docs/reliability.md).
+/// </summary>
+internal sealed class RunLimitOptions
+{
+    private readonly Option<long?> _maxRows = new("--max-rows")
+    {
+        Description = "Most rows a join or append may produce before the run stops with E-LIMIT (default "
+            + RunOptions.Default.MaxRows.ToString(CultureInfo.InvariantCulture) + ").",
+    };
+
+    private readonly Option<long?> _maxStringBytes = new("--max-string-bytes")
+    {
+        Description = "Most UTF-8 bytes one computed string may have before the run stops with E-LIMIT (default "
+            + RunOptions.Default.MaxStringBytes.ToString(CultureInfo.InvariantCulture) + ").",
+    };
+
+    private readonly Option<string> _root = new("--root")
+    {
+        Description = "Project root: load paths may not leave it (default: the current directory).",
+    };
+
+    private readonly Option<bool> _allowOutsideRoot = new("--allow-outside-root")
+    {
+        Description = "Let load paths leave the project root.",
+    };
+
+    public void AddTo(Command command)
+    {
+        command.Options.Add(_maxRows);
+        command.Options.Add(_maxStringBytes);
+        command.Options.Add(_root);
+        command.Options.Add(_allowOutsideRoot);
+    }
+
+    /// <summary>The run options the command line asks for, or false after a usage message on stderr.</summary>
+    public bool TryGet(ParseResult parse, CliContext context, out RunOptions options)
+    {
+        options = RunOptions.Default;
+        var maxRows = parse.GetValue(_maxRows);
+        var maxBytes = parse.GetValue(_maxStringBytes);
+        if (maxRows is < 1 || maxBytes is < 1)
+        {
+            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": " + (maxRows is < 1 ? "--max-rows" : "--max-string-bytes") + " must be 1 or more");
+            return false;
+        }
+        var root = parse.GetValue(_root);
+        var fullRoot = context.WorkingDirectory;
+        if (root is not null)
+        {
+            try
+            {
+                fullRoot = Path.GetFullPath(root, context.WorkingDirectory);
+            }
+            catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
+            {
+                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --root: " + e.Message);
+                return false;
+            }
+            if (!Directory.Exists(fullRoot))
+            {
+                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --root: no such folder '" + Harness.Formatting.CellText.Safe(root) + "'");
+                return false;
+            }
+        }
+        options = RunOptions.Default with
+        {
+            MaxRows = maxRows ?? RunOptions.Default.MaxRows,
+            MaxStringBytes = maxBytes ?? RunOptions.Default.MaxStringBytes,
+            Root = fullRoot,
+            AllowOutsideRoot = parse.GetValue(_allowOutsideRoot),
+        };
+        return true;
+    }
+}
