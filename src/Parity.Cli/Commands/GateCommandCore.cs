@@ -88,6 +88,24 @@ internal static class GateCommandCore
         }
     }
 
+    /// <summary><c>run</c> and <c>check</c> take the same arguments; only the golden comparison differs.</summary>
+    public static Command CreateGate(CliContext context, string name, string description, bool compareSnapshots)
+    {
+        var scripts = Scripts();
+        var modes = Modes();
+        var golden = Golden();
+        var outDir = Out();
+        var format = Format();
+        var tolerance = FloatTolerance();
+        var rowLimit = RowLimit();
+        var limits = new RunLimitOptions();
+        var command = new Command(name, description) { scripts, modes, golden, outDir, format, tolerance, rowLimit };
+        limits.AddTo(command);
+        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : RunGate(context, name, p.GetValue(scripts) ?? [], p.GetValue(modes), p.GetValue(golden),
+            p.GetValue(outDir), p.GetValue(format), p.GetValue(tolerance), p.GetValue(rowLimit), runOptions, compareSnapshots));
+        return command;
+    }
+
     /// <summary>The loop of <c>run</c> and <c>check</c>: returns the exit code of spec §4.</summary>
     public static int RunGate(CliContext context, string command, string[] scripts, string? modesText, string? golden, string? outDir, string? formats,
         string? toleranceText, int? rowLimitValue, Script.Running.RunOptions runOptions, bool compareSnapshots)
