@@ -1,3 +1,4 @@
+using System.Buffers;
 using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
@@ -80,9 +81,7 @@ public static class Sorting
                 var span = p.Span;
                 var bits = p.Validity.Bits.Span;
                 var off = p.Validity.BitOffset;
-                keys = new ulong[n];
-                rows = new int[n];
-                tail = new int[n];
+                RentScratch(n, out keys, out rows, out tail);
                 for (var i = 0; i < n; i++)
                 {
                     if (!ValidBits.IsValid(bits, off, i)) { tail[n - 1 - missingCount++] = i; continue; }
@@ -97,9 +96,7 @@ public static class Sorting
                 var bits = f.Validity.Bits.Span;
                 var off = f.Validity.BitOffset;
                 var nanIsMissing = f.Marker == MissingMarker.Nan;
-                keys = new ulong[n];
-                rows = new int[n];
-                tail = new int[n];
+                RentScratch(n, out keys, out rows, out tail);
                 for (var i = 0; i < n; i++)
                 {
                     var d = span[i];
@@ -114,6 +111,7 @@ public static class Sorting
                 perm = [];
                 return false;
         }
+        var (ownKeys, ownRows, ownTail) = (keys, rows, tail);
         RadixRanks.SortLarge(ref keys, ref rows, m);
         perm = new int[n];
         rows.AsSpan(0, m).CopyTo(perm);
@@ -121,8 +119,35 @@ public static class Sorting
         // Missing rows were written backwards from the end of tail; restore input order.
         var at = m + nanCount;
         for (var k = 0; k < missingCount; k++) perm[at + k] = tail[n - 1 - k];
+        ReturnScratch(n, ownKeys, ownRows, ownTail);
         return true;
     }
+
+    /// <summary>Large scratch arrays come from the shared pool: fresh large arrays are slow to touch and wake the full GC.</summary>
+    private static void RentScratch(int n, out ulong[] keys, out int[] rows, out int[] tail)
+    {
+        if (n < PooledFrom)
+        {
+            keys = new ulong[n];
+            rows = new int[n];
+            tail = new int[n];
+            return;
+        }
+        keys = ArrayPool<ulong>.Shared.Rent(n);
+        rows = ArrayPool<int>.Shared.Rent(n);
+        tail = ArrayPool<int>.Shared.Rent(n);
+    }
+
+    /// <summary>Returns what <see cref="RentScratch"/> rented (the originals, whatever the sort swapped in).</summary>
+    private static void ReturnScratch(int n, ulong[] keys, int[] rows, int[] tail)
+    {
+        if (n < PooledFrom) return;
+        ArrayPool<ulong>.Shared.Return(keys);
+        ArrayPool<int>.Shared.Return(rows);
+        ArrayPool<int>.Shared.Return(tail);
+    }
+
+    private const int PooledFrom = 1 << 16;
 
     /// <summary>Stable: rows with equal keys keep their input order.</summary>
     private static int[] CountingSort(long[] keys, int card)

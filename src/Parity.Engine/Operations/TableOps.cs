@@ -30,14 +30,17 @@ public static class TableOps
     public static Table Filter(Table table, ReadOnlySpan<bool> keep)
     {
         if (keep.Length != table.RowCount) throw new ArgumentException("mask length differs from row count", nameof(keep));
-        var count = 0;
-        foreach (var k in keep)
-            if (k) count++;
-        var rows = new int[count];
+        var count = keep.Count(true);
+        // Branch-free: every row index is written, the cursor moves only past kept ones (a mask of mixed
+        // flags would otherwise mispredict about every other row). One spare slot takes the last write.
+        var rows = GC.AllocateUninitializedArray<int>(count + 1);
         var j = 0;
         for (var i = 0; i < keep.Length; i++)
-            if (keep[i]) rows[j++] = i;
-        return GatherExisting(table, rows);
+        {
+            rows[j] = i;
+            j += keep[i] ? 1 : 0;
+        }
+        return GatherExisting(table, rows.AsSpan(0, count));
     }
 
     /// <summary>

@@ -19,8 +19,10 @@ internal static class Gatherer
         var anyNull = array.NullCount > 0;
         // Pass 1 reads each source row's offsets once (the random access), writes the new offsets and keeps
         // the source start; pass 2 copies bytes with sequential reads of those two arrays.
-        var newOffsets = new int[rows.Length + 1];
-        var from = GC.AllocateUninitializedArray<int>(rows.Length);
+        // Offsets are written straight into the Arrow buffer's bytes; the source starts live in a pooled array.
+        var offsetBytes = new byte[((long)rows.Length + 1) * 4];
+        var newOffsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(offsetBytes.AsSpan());
+        var from = System.Buffers.ArrayPool<int>.Shared.Rent(rows.Length);
         long total = 0;
         var nulls = 0;
         byte[]? bits = null;
@@ -51,8 +53,9 @@ internal static class Gatherer
             var length = newOffsets[i + 1] - at;
             if (length != 0) data.Slice(from[i], length).CopyTo(dst[at..]);
         }
-        var validity = bits is null ? Validity.AllValid(rows.Length) : new Validity(bits, 0, rows.Length);
-        return Utf8ColumnBuilder.FromBuffers(newOffsets, bytes, validity, column.Marker, nulls);
+        System.Buffers.ArrayPool<int>.Shared.Return(from);
+        var bitmap = bits is null ? Apache.Arrow.ArrowBuffer.Empty : new Apache.Arrow.ArrowBuffer(bits);
+        return new Utf8Column(new Apache.Arrow.StringArray(rows.Length, new Apache.Arrow.ArrowBuffer(offsetBytes), new Apache.Arrow.ArrowBuffer(bytes), bitmap, nulls, 0), column.Marker);
     }
 
     /// <summary>A bitmap with every slot valid (clear bits are set as missing rows are met).</summary>

@@ -56,9 +56,12 @@ internal static class RadixRanks
             Sort(ref keys, ref rows, count);
             return;
         }
-        var sk = new ulong[count];
-        var sr = new int[count];
+        // Scratch from the shared pool (SortRange leaves the result in place, so nothing is swapped).
+        var sk = System.Buffers.ArrayPool<ulong>.Shared.Rent(count);
+        var sr = System.Buffers.ArrayPool<int>.Shared.Rent(count);
         SortRange(keys, rows, sk, sr, 0, count, new int[256]);
+        System.Buffers.ArrayPool<ulong>.Shared.Return(sk);
+        System.Buffers.ArrayPool<int>.Shared.Return(sr);
     }
 
     /// <summary>Ranges up to this many pairs (12 bytes each) are sorted by LSD passes while they stay in cache.</summary>

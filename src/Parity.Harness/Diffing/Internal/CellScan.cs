@@ -11,34 +11,53 @@ namespace Parity.Harness.Diffing.Internal;
 /// </summary>
 internal static class CellScan
 {
+    /// <summary>Rows per bulk test: a block whose buffers are byte-equal is skipped without looking at cells.</summary>
+    private const int Block = 4096;
+
     /// <summary>Adds every row of [0, rows) that is not provably the same to <paramref name="candidates"/>.</summary>
     public static void Candidates(Column a, Column b, int rows, List<int> candidates)
     {
+        var bulk = BlockEquality.For(a, b);
+        if (bulk is null)
+        {
+            Candidates(a, b, 0, rows, candidates);
+            return;
+        }
+        for (var start = 0; start < rows; start += Block)
+        {
+            var count = Math.Min(Block, rows - start);
+            if (!bulk.Same(start, count)) Candidates(a, b, start, start + count, candidates);
+        }
+    }
+
+    /// <summary>The typed, row-by-row pass over rows [from, to).</summary>
+    private static void Candidates(Column a, Column b, int from, int to, List<int> candidates)
+    {
         switch (a, b)
         {
-            case (Int64Column x, Int64Column y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, rows, candidates); return;
-            case (TimestampColumn x, TimestampColumn y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, rows, candidates); return;
-            case (BoolColumn x, BoolColumn y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, rows, candidates); return;
-            case (Float64Column x, Float64Column y): Floats(x, y, rows, candidates); return;
-            case (Int64Column x, Float64Column y): IntFloat(x, y, rows, candidates); return;
-            case (Float64Column x, Int64Column y): IntFloat(y, x, rows, candidates); return;
-            case (Utf8Column x, Utf8Column y): Utf8(x, y, rows, candidates); return;
-            case (ObjectColumn x, Utf8Column y): ObjectUtf8(x, y, rows, candidates); return;
-            case (Utf8Column x, ObjectColumn y): ObjectUtf8(y, x, rows, candidates); return;
-            case (ObjectColumn x, ObjectColumn y): Objects(x, y, rows, candidates); return;
+            case (Int64Column x, Int64Column y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, from, to, candidates); return;
+            case (TimestampColumn x, TimestampColumn y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, from, to, candidates); return;
+            case (BoolColumn x, BoolColumn y): Same(x.Span, x.Validity, y.Span, y.Validity, a.Marker == b.Marker, from, to, candidates); return;
+            case (Float64Column x, Float64Column y): Floats(x, y, from, to, candidates); return;
+            case (Int64Column x, Float64Column y): IntFloat(x, y, from, to, candidates); return;
+            case (Float64Column x, Int64Column y): IntFloat(y, x, from, to, candidates); return;
+            case (Utf8Column x, Utf8Column y): Utf8(x, y, from, to, candidates); return;
+            case (ObjectColumn x, Utf8Column y): ObjectUtf8(x, y, from, to, candidates); return;
+            case (Utf8Column x, ObjectColumn y): ObjectUtf8(y, x, from, to, candidates); return;
+            case (ObjectColumn x, ObjectColumn y): Objects(x, y, from, to, candidates); return;
             default:
-                for (var r = 0; r < rows; r++) candidates.Add(r);
+                for (var r = from; r < to; r++) candidates.Add(r);
                 return;
         }
     }
 
-    private static void Same<T>(ReadOnlySpan<T> x, Validity vx, ReadOnlySpan<T> y, Validity vy, bool sameMarker, int rows, List<int> candidates)
+    private static void Same<T>(ReadOnlySpan<T> x, Validity vx, ReadOnlySpan<T> y, Validity vy, bool sameMarker, int from, int to, List<int> candidates)
         where T : unmanaged, IEquatable<T>
     {
-        x = x[..rows];
-        y = y[..rows];
+        x = x[..to];
+        y = y[..to];
         var bitmaps = vx.HasBitmap || vy.HasBitmap;
-        for (var r = 0; r < x.Length; r++)
+        for (var r = from; r < x.Length; r++)
         {
             if (!bitmaps)
             {
@@ -54,12 +73,12 @@ internal static class CellScan
         }
     }
 
-    private static void Floats(Float64Column a, Float64Column b, int rows, List<int> candidates)
+    private static void Floats(Float64Column a, Float64Column b, int from, int to, List<int> candidates)
     {
-        var x = a.Span[..rows];
-        var y = b.Span[..rows];
+        var x = a.Span[..to];
+        var y = b.Span[..to];
         var sameMarker = a.Marker == b.Marker;
-        for (var r = 0; r < x.Length; r++)
+        for (var r = from; r < x.Length; r++)
         {
             var ax = a.Validity.IsValid(r);
             var ay = b.Validity.IsValid(r);
@@ -77,11 +96,11 @@ internal static class CellScan
         }
     }
 
-    private static void IntFloat(Int64Column a, Float64Column b, int rows, List<int> candidates)
+    private static void IntFloat(Int64Column a, Float64Column b, int from, int to, List<int> candidates)
     {
-        var x = a.Span[..rows];
-        var y = b.Span[..rows];
-        for (var r = 0; r < x.Length; r++)
+        var x = a.Span[..to];
+        var y = b.Span[..to];
+        for (var r = from; r < x.Length; r++)
         {
             if (a.Validity.IsValid(r) && b.Validity.IsValid(r))
             {
@@ -92,14 +111,14 @@ internal static class CellScan
         }
     }
 
-    private static void Utf8(Utf8Column a, Utf8Column b, int rows, List<int> candidates)
+    private static void Utf8(Utf8Column a, Utf8Column b, int from, int to, List<int> candidates)
     {
         var sameMarker = a.Marker == b.Marker;
         var oa = a.Offsets;
         var ob = b.Offsets;
         var da = a.Data;
         var db = b.Data;
-        for (var r = 0; r < rows; r++)
+        for (var r = from; r < to; r++)
         {
             var ma = a.IsMissing(r);
             var mb = b.IsMissing(r);
@@ -109,7 +128,7 @@ internal static class CellScan
         }
     }
 
-    private static void ObjectUtf8(ObjectColumn a, Utf8Column b, int rows, List<int> candidates)
+    private static void ObjectUtf8(ObjectColumn a, Utf8Column b, int from, int to, List<int> candidates)
     {
         var cells = a.Cells.Span;
         var offsets = b.Offsets;
@@ -117,7 +136,7 @@ internal static class CellScan
         var buffer = ArrayPool<char>.Shared.Rent(256);
         try
         {
-            for (var r = 0; r < rows; r++)
+            for (var r = from; r < to; r++)
             {
                 if (cells[r] is string s && !b.IsMissing(r))
                 {
@@ -142,12 +161,12 @@ internal static class CellScan
         }
     }
 
-    private static void Objects(ObjectColumn a, ObjectColumn b, int rows, List<int> candidates)
+    private static void Objects(ObjectColumn a, ObjectColumn b, int from, int to, List<int> candidates)
     {
         var x = a.Cells.Span;
         var y = b.Cells.Span;
         var sameMarker = a.Marker == b.Marker;
-        for (var r = 0; r < rows; r++)
+        for (var r = from; r < to; r++)
         {
             var cx = x[r];
             var cy = y[r];
