@@ -325,7 +325,8 @@ internal static class ArrowSourceReader
         if (a.NullCount > 0 && !a.NullBitmapBuffer.IsEmpty && ((a.Offset + n + 7) >> 3) > a.NullBitmapBuffer.Length)
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': validity bitmap shorter than the array", 0, col);
         var offsets = a.ValueOffsets;
-        var dataLength = a.ValueBuffer.Length;
+        var data = a.ValueBuffer.Span;
+        var dataLength = data.Length;
         var prev = offsets[0];
         if (prev < 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': negative offset", 1, col);
         for (var i = 1; i <= n; i++)
@@ -333,6 +334,10 @@ internal static class ArrowSourceReader
             var o = offsets[i];
             if (o < prev || o > dataLength)
                 throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets are not monotonic within the data buffer", i, col);
+            // The whole range is checked as UTF-8 below; a value starting on a continuation byte would split a
+            // character across two values, which that check alone cannot see.
+            if (o > prev && (data[prev] & 0xC0) == 0x80)
+                throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i, col);
             prev = o;
         }
         if (!System.Text.Unicode.Utf8.IsValid(a.ValueBuffer.Span.Slice(offsets[0], prev - offsets[0])))

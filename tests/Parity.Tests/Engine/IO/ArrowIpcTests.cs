@@ -103,6 +103,27 @@ public sealed class ArrowIpcTests : IDisposable
     }
 
     [Fact]
+    public void A_character_split_across_two_values_is_invalid_utf8()
+    {
+        // Unicode, UTF-8 (Table 3-7): U+00E9 is C3 A9. Stored as two values [C3] and [A9], the data buffer as
+        // a whole is valid UTF-8 but each value is not (Apache Arrow columnar format: each utf8 value is UTF-8).
+        var offsets = new ArrowBuffer(MemoryMarshal.AsBytes<int>(new[] { 0, 1, 2 }).ToArray());
+        var data = new ArrowBuffer(new byte[] { 0xC3, 0xA9 });
+        var array = new StringArray(2, offsets, data, ArrowBuffer.Empty, 0, 0);
+        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], 2);
+        var path = _files.PathOf("split.arrow");
+        using (var fs = File.Create(path))
+        {
+            using var w = new ArrowFileWriter(fs, batch.Schema);
+            w.WriteRecordBatch(batch);
+            w.WriteEnd();
+        }
+        var ex = Assert.Throws<Parity.Engine.Errors.EngineException>(() => DataLoader.Load(path, LoadOptions.Default, Mode.Modern));
+        Assert.Equal("E-UTF8", ex.Code);
+        Assert.Equal(2, ex.Row);
+    }
+
+    [Fact]
     public void Multiple_batches_concatenate()
     {
         var batch = ArrowIpcWriter.ToRecordBatch(SampleTable());
