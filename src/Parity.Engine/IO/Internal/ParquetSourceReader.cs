@@ -51,9 +51,39 @@ internal static class ParquetSourceReader
         }
     }
 
+    /// <summary>
+    /// Parquet.Net 6.1.0 can loop forever on some corrupt footers (found by our fuzzer, kept as
+    /// tests/Parity.Tests/Reliability/Cases/parquet-footer-hang.parquet). Opening runs on a task of its own
+    /// with a time budget, so a bad file ends in a located error rather than a hang. The abandoned task keeps
+    /// a thread busy until the process exits, which a CLI does right after reporting the error.
+    /// </summary>
+    private static async Task<ParquetReader> OpenAsync(Stream stream, string display)
+    {
+        var open = Task.Run(() => ParquetReader.CreateAsync(stream, leaveStreamOpen: true));
+        var budget = OpenBudget();
+        try
+        {
+            return await open.WaitAsync(budget).ConfigureAwait(false);
+        }
+        catch (TimeoutException)
+        {
+            throw LoadThrow.Error(ErrorCodes.Parquet, display,
+                $"the file's metadata could not be read within {budget.TotalSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture)} s (corrupt footer?); "
+                + "raise the budget with the environment variable " + OpenBudgetVariable);
+        }
+    }
+
+    internal const string OpenBudgetVariable = "PARITY_PARQUET_OPEN_SECONDS";
+
+    private static TimeSpan OpenBudget() =>
+        double.TryParse(Environment.GetEnvironmentVariable(OpenBudgetVariable), System.Globalization.NumberStyles.Float,
+            System.Globalization.CultureInfo.InvariantCulture, out var seconds) && seconds > 0
+            ? TimeSpan.FromSeconds(seconds)
+            : TimeSpan.FromSeconds(30);
+
     private static async ValueTask<SourceTable> ReadAsync(Stream stream, string display, Action<int> at)
     {
-        await using var reader = await ParquetReader.CreateAsync(stream, leaveStreamOpen: true).ConfigureAwait(false);
+        await using var reader = await OpenAsync(stream, display).ConfigureAwait(false);
         var fields = reader.Schema.Fields;
         var dataFields = reader.Schema.GetDataFields();
         if (fields.Count != dataFields.Length)
