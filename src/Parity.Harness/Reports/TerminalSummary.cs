@@ -89,7 +89,9 @@ public static class TerminalSummary
         sb.Append("  ").Append(SafeText.Visible(f.Message));
         output.WriteLine(sb.ToString());
 
-        foreach (var sample in f.Samples)
+        // Accepted and resolved findings stay one line each: a reviewer reads samples for what needs a decision.
+        var samples = f.Status is FindingStatus.New or FindingStatus.Changed ? f.Samples : [];
+        foreach (var sample in samples)
         {
             sb.Clear();
             // Statement-level samples (aliasing sets, warnings) have no row.

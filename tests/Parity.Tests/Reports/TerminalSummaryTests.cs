@@ -12,14 +12,15 @@ public sealed class TerminalSummaryTests
     }
 
     [Fact]
-    public void Lists_scripts_then_one_line_per_finding_with_samples()
+    public void Lists_scripts_then_one_line_per_finding_with_samples_for_new_ones()
     {
         var text = Render(ReportFixtures.Ordinary(), colour: false);
         var lines = text.Split('\n');
         Assert.Equal("FAIL  ferry/tickets.parity  2 checkpoints, findings: 1 type, 1 missing, 1 alias (2 new, 1 accepted)", lines[0]);
         Assert.Equal("  type    line 4  checkpoint 'adults'  column 'age'  x1  new  column 'age' is float64 under legacy and int64 under modern", lines[1]);
         Assert.Contains("  missing line 4  checkpoint 'adults'  column 'age'  x2  accepted  missing ages print NaN under legacy and null under modern", lines);
-        Assert.Contains("      row 3:  legacy NaN  |  modern null", lines);
+        // Samples only for findings that need a decision; the accepted one stays a single line.
+        Assert.DoesNotContain("      row 3:  legacy NaN  |  modern null", lines);
         Assert.Contains("      legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);
         Assert.Contains("PASS  ferry/routes.parity  1 checkpoint, findings: none (1 resolved)", lines);
         Assert.Equal("failed: 2 scripts, findings: 1 type, 1 missing, 1 alias", lines[^2]);
