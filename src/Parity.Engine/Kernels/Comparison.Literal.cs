@@ -47,7 +47,7 @@ public static partial class Comparison
     private static Column Numeric(ComparisonOp op, ReadOnlySpan<long> x, Validity validity, Value literal, Mode mode)
     {
         var result = GC.AllocateUninitializedArray<bool>(x.Length);
-        if (literal.Kind == ValueKind.Int64) CompareLongs(op, x, literal.Int64, result);
+        if (literal.Kind == ValueKind.Int64) CompareValues(op, x, literal.Int64, result);
         else CompareLongsWithDouble(op, x, literal.Float64, result);
         return NumericResult(op, result, validity, mode);
     }
@@ -55,7 +55,7 @@ public static partial class Comparison
     private static Column Numeric(ComparisonOp op, ReadOnlySpan<double> x, Validity validity, Value literal, Mode mode)
     {
         var result = GC.AllocateUninitializedArray<bool>(x.Length);
-        CompareDoubles(op, x, literal.AsDouble, result);
+        CompareValues(op, x, literal.AsDouble, result);
         return NumericResult(op, result, validity, mode);
     }
 
@@ -73,8 +73,10 @@ public static partial class Comparison
         return new BoolColumn(result, mode.Missing);
     }
 
-    // One loop per operator so each inner loop is a plain compare and store.
-    private static void CompareLongs(ComparisonOp op, ReadOnlySpan<long> x, long y, Span<bool> r)
+    // One loop per operator so each inner loop is a plain compare and store; the JIT specialises it per
+    // value type. For doubles the operators are IEEE 754's: a NaN is unordered, so all but != are false.
+    private static void CompareValues<T>(ComparisonOp op, ReadOnlySpan<T> x, T y, Span<bool> r)
+        where T : System.Numerics.IComparisonOperators<T, T, bool>
     {
         r = r[..x.Length];
         switch (op)
@@ -100,21 +102,6 @@ public static partial class Comparison
             case ComparisonOp.LessOrEqual: for (var i = 0; i < x.Length; i++) r[i] = (double)x[i] <= y; break;
             case ComparisonOp.Greater: for (var i = 0; i < x.Length; i++) r[i] = (double)x[i] > y; break;
             default: for (var i = 0; i < x.Length; i++) r[i] = (double)x[i] >= y; break;
-        }
-    }
-
-    // IEEE 754: a NaN is unordered, so every operator but != is false for it (what CompareDoubles/Apply give).
-    private static void CompareDoubles(ComparisonOp op, ReadOnlySpan<double> x, double y, Span<bool> r)
-    {
-        r = r[..x.Length];
-        switch (op)
-        {
-            case ComparisonOp.Equal: for (var i = 0; i < x.Length; i++) r[i] = x[i] == y; break;
-            case ComparisonOp.NotEqual: for (var i = 0; i < x.Length; i++) r[i] = x[i] != y; break;
-            case ComparisonOp.Less: for (var i = 0; i < x.Length; i++) r[i] = x[i] < y; break;
-            case ComparisonOp.LessOrEqual: for (var i = 0; i < x.Length; i++) r[i] = x[i] <= y; break;
-            case ComparisonOp.Greater: for (var i = 0; i < x.Length; i++) r[i] = x[i] > y; break;
-            default: for (var i = 0; i < x.Length; i++) r[i] = x[i] >= y; break;
         }
     }
 }

@@ -53,14 +53,7 @@ internal static class ArrowSourceReader
             if (ArrowIpcPrecheck.Check(memory.Span[start..], start == 8) is { } corrupt)
                 throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "not a sound Arrow IPC file: " + corrupt);
             using var reader = new ArrowStreamReader((ReadOnlyMemory<byte>)memory[start..]);
-            var batches = new List<RecordBatch>();
-            RecordBatch? batch;
-            while ((batch = reader.ReadNextRecordBatch()) is not null)
-            {
-                CheckBatch(batch, display);
-                batches.Add(batch);
-            }
-            return Assemble(reader.Schema, batches, display, ref col);
+            return ReadBatches(reader, display, ref col);
         }
         catch (EngineException)
         {
@@ -74,6 +67,19 @@ internal static class ArrowSourceReader
         {
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "cannot read as Arrow IPC: " + ex.Message, 0, col);
         }
+    }
+
+    /// <summary>Every batch, each checked against its buffers before use, assembled into one source table.</summary>
+    private static SourceTable ReadBatches(ArrowStreamReader reader, string display, ref int col)
+    {
+        var batches = new List<RecordBatch>();
+        RecordBatch? batch;
+        while ((batch = reader.ReadNextRecordBatch()) is not null)
+        {
+            CheckBatch(batch, display);
+            batches.Add(batch);
+        }
+        return Assemble(reader.Schema, batches, display, ref col);
     }
 
     /// <summary>
@@ -91,14 +97,7 @@ internal static class ArrowSourceReader
             var file = stream.Read(head) == 6 && head.SequenceEqual(Magic.AsSpan(0, 6));
             stream.Position = 0;
             using var reader = file ? new ArrowFileReader(stream, ManagedAllocator.Instance, leaveOpen: true) : new ArrowStreamReader(stream, ManagedAllocator.Instance, leaveOpen: true);
-            var batches = new List<RecordBatch>();
-            RecordBatch? batch;
-            while ((batch = reader.ReadNextRecordBatch()) is not null)
-            {
-                CheckBatch(batch, display);
-                batches.Add(batch);
-            }
-            return Assemble(reader.Schema, batches, display, ref col);
+            return ReadBatches(reader, display, ref col);
         }
         catch (EngineException)
         {
