@@ -33,7 +33,8 @@ public static class ArrowIpcWriter
 
     public static void Write(Table table, string path)
     {
-        var batch = ToRecordBatch(table.RowCount > BatchRows ? Slice(table, 0, BatchRows) : table);
+        var bounds = BatchBounds(table);
+        var batch = ToRecordBatch(bounds.Count == 2 ? table : Slice(table, 0, bounds[1]));
         var full = Path.GetFullPath(path);
         var dir = Path.GetDirectoryName(full) ?? ".";
         Directory.CreateDirectory(dir);
@@ -44,8 +45,8 @@ public static class ArrowIpcWriter
             {
                 using var writer = new ArrowFileWriter(stream, batch.Schema, leaveOpen: true);
                 writer.WriteRecordBatch(batch);
-                for (var start = BatchRows; start < table.RowCount; start += BatchRows)
-                    writer.WriteRecordBatch(ToRecordBatch(Slice(table, start, Math.Min(BatchRows, table.RowCount - start))));
+                for (var b = 1; b < bounds.Count - 1; b++)
+                    writer.WriteRecordBatch(ToRecordBatch(Slice(table, bounds[b], bounds[b + 1] - bounds[b])));
                 writer.WriteEnd();
                 stream.Flush(flushToDisk: true);
             }
@@ -58,10 +59,58 @@ public static class ArrowIpcWriter
     }
 
     /// <summary>
-    /// Rows per record batch. A small table is one batch (the loader maps it without copying); a large one is
-    /// split so that no message body nears 2 GiB, which Apache.Arrow cannot address as one buffer.
+    /// Most body bytes per record batch. A table below it is one batch (the loader maps it without copying);
+    /// a larger one is split so that no message body nears 2 GiB, which Apache.Arrow cannot address as one buffer.
     /// </summary>
-    private const int BatchRows = 4_000_000;
+    private const long BatchBytes = 1L << 30;
+
+    /// <summary>Rows between checks of the running batch size.</summary>
+    private const int BlockRows = 1 << 16;
+
+    /// <summary>
+    /// Row boundaries of the batches (first 0, last the row count): blocks of rows are added to a batch while its
+    /// estimated body stays within <see cref="BatchBytes"/>. String bytes are counted per block, so a file whose long
+    /// strings sit together is split where they are.
+    /// </summary>
+    internal static List<int> BatchBounds(Table table, long budget = BatchBytes)
+    {
+        var bounds = new List<int> { 0 };
+        long size = 0;
+        for (var start = 0; start < table.RowCount; start += BlockRows)
+        {
+            var rows = Math.Min(BlockRows, table.RowCount - start);
+            long block = 0;
+            foreach (var column in table.Columns) block += EstimatedBytes(column, start, rows);
+            if (size > 0 && size + block > budget)
+            {
+                bounds.Add(start);
+                size = 0;
+            }
+            size += block;
+        }
+        bounds.Add(table.RowCount);
+        return bounds;
+    }
+
+    /// <summary>An upper estimate of the Arrow bytes of rows [start, start + rows) of a column.</summary>
+    private static long EstimatedBytes(Column column, int start, int rows)
+    {
+        switch (column)
+        {
+            case Utf8Column u:
+                return 4L * rows + u.Offsets[start + rows] - u.Offsets[start] + rows / 8 + 1;
+            case ObjectColumn o:
+            {
+                long bytes = 8L * rows;
+                var cells = o.Cells.Span.Slice(start, rows);
+                // Three UTF-8 bytes at most per UTF-16 unit; non-string cells are written as short text or numbers.
+                foreach (var cell in cells) bytes += cell is string s ? 3L * s.Length : 32;
+                return bytes;
+            }
+            default:
+                return 8L * rows + rows / 8 + 1;
+        }
+    }
 
     private static Table Slice(Table table, int start, int rows)
     {

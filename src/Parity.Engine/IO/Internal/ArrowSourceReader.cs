@@ -325,25 +325,35 @@ internal static class ArrowSourceReader
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': validity bitmap shorter than the array", 0, col);
         var offsets = a.ValueOffsets;
         var data = a.ValueBuffer.Span;
-        var dataLength = data.Length;
-        var prev = offsets[0];
-        if (prev < 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': negative offset", 1, col);
-        for (var i = 1; i <= n; i++)
+        var first = offsets[0];
+        if (first < 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': negative offset", 1, col);
+        // One branch-free pass: a negative offset or a decrease leaves the sign bit in the OR (the difference of two
+        // non-negative ints cannot overflow); the rare failure is located after.
+        var decrease = 0;
+        for (var i = 1; i <= n; i++) decrease |= offsets[i] | (offsets[i] - offsets[i - 1]);
+        var last = offsets[n];
+        if (decrease < 0 || last > data.Length)
         {
-            var o = offsets[i];
-            if (o < prev || o > dataLength)
-                throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets are not monotonic within the data buffer", i, col);
-            // The whole range is checked as UTF-8 below; a value starting on a continuation byte would split a
-            // character across two values, which that check alone cannot see.
-            if (o > prev && (data[prev] & 0xC0) == 0x80)
-                throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i, col);
-            prev = o;
+            for (var i = 1; i <= n; i++)
+                if (offsets[i] < offsets[i - 1] || offsets[i] > data.Length)
+                    throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets are not monotonic within the data buffer", i, col);
         }
-        if (!System.Text.Unicode.Utf8.IsValid(a.ValueBuffer.Span.Slice(offsets[0], prev - offsets[0])))
+        var bytes = data[first..last];
+        // ASCII is valid UTF-8 and no value can start inside a character: the common case ends here.
+        if (System.Text.Ascii.IsValid(bytes)) return;
+        if (!System.Text.Unicode.Utf8.IsValid(bytes))
         {
             for (var i = 0; i < n; i++)
                 if (!a.IsNull(i) && !System.Text.Unicode.Utf8.IsValid(a.GetBytes(i)))
                     throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8", i + 1, col);
+        }
+        // The whole range is valid, but a value starting on a continuation byte would split a character across two
+        // values, which that check alone cannot see.
+        for (var i = 0; i < n; i++)
+        {
+            var o = offsets[i];
+            if (offsets[i + 1] > o && (data[o] & 0xC0) == 0x80)
+                throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i + 1, col);
         }
     }
 

@@ -103,6 +103,59 @@ public sealed class ArrowIpcTests : IDisposable
     }
 
     [Fact]
+    public void A_table_of_millions_of_narrow_rows_is_written_as_one_mapped_batch()
+    {
+        // 4,200,000 rows once crossed a fixed 4,000,000-row batch size and the load had to copy both batches.
+        const int n = 4_200_000;
+        var ids = new long[n];
+        for (var i = 0; i < n; i++) ids[i] = i;
+        var path = _files.PathOf("big.arrow");
+        ArrowIpcWriter.Write(new Table(["id"], [new Int64Column(ids, MissingMarker.Null)], n), path);
+        var loaded = (Int64Column)DataLoader.Load(path, LoadOptions.Default, Mode.Modern)["id"];
+        Assert.True(MemoryMarshal.TryGetMemoryManager<long, CastMemory<long>>(loaded.Values, out _));
+        Assert.Equal(n - 1, loaded.Span[n - 1]);
+    }
+
+    [Fact]
+    public void Batches_are_cut_by_bytes_where_the_long_strings_are()
+    {
+        // 200,000 rows: the first 65,536 hold 1,000-byte strings, the rest one byte. With a 66 MB budget the
+        // long block fills a batch of its own and the short rows share the next one.
+        const int n = 200_000;
+        var b = new Utf8ColumnBuilder(n, n * 2);
+        var longText = new string('x', 1000);
+        for (var i = 0; i < n; i++) b.Append(i < 65_536 ? longText : "y");
+        var table = new Table(["s"], [b.Build(MissingMarker.Null)], n);
+        Assert.Equal([0, n], ArrowIpcWriter.BatchBounds(table));
+        Assert.Equal([0, 65_536, n], ArrowIpcWriter.BatchBounds(table, 66_000_000));
+        var path = _files.PathOf("cut.arrow");
+        ArrowIpcWriter.Write(table, path);
+        Assert.Equal("y", DataLoader.Load(path, LoadOptions.Default, Mode.Modern)["s"].GetValue(n - 1).String);
+    }
+
+    [Theory]
+    [InlineData(new[] { 0, 2, 1, 3 }, 2)] // a decrease at offset 2
+    [InlineData(new[] { 0, 1, -5, 3 }, 2)] // a negative offset: its difference from 1 must not pass as an increase
+    [InlineData(new[] { 0, 1, 2, 9 }, 0)] // past the 3-byte data buffer: the message check finds it before any row is read
+    public void Bad_string_offsets_are_located(int[] offsetValues, int row)
+    {
+        // Apache Arrow columnar format, "Variable-size Binary Layout": offsets are non-decreasing and within the data.
+        var offsets = new ArrowBuffer(MemoryMarshal.AsBytes<int>(offsetValues).ToArray());
+        var array = new StringArray(3, offsets, new ArrowBuffer("abc"u8.ToArray()), ArrowBuffer.Empty, 0, 0);
+        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], 3);
+        var path = _files.PathOf("offsets.arrow");
+        using (var fs = File.Create(path))
+        {
+            using var w = new ArrowFileWriter(fs, batch.Schema);
+            w.WriteRecordBatch(batch);
+            w.WriteEnd();
+        }
+        var ex = Assert.Throws<Parity.Engine.Errors.EngineException>(() => DataLoader.Load(path, LoadOptions.Default, Mode.Modern));
+        Assert.Equal("E-ARROW", ex.Code);
+        Assert.Equal(row, ex.Row);
+    }
+
+    [Fact]
     public void A_character_split_across_two_values_is_invalid_utf8()
     {
         // Unicode, UTF-8 (Table 3-7): U+00E9 is C3 A9. Stored as two values [C3] and [A9], the data buffer as
