@@ -1,6 +1,7 @@
 using Apache.Arrow;
 using Parity.Engine.Columns;
 using Parity.Engine.Errors;
+using Parity.Engine.IO.Internal.ParquetPages;
 using Parquet;
 using Parquet.Schema;
 
@@ -104,12 +105,12 @@ internal static class ParquetSourceReader
             var f = dataFields[c];
             if (f.MaxRepetitionLevel > 0)
                 throw LoadThrow.Error(ErrorCodes.Parquet, display, $"column '{f.Name}' is repeated (a list); not supported", 0, c + 1);
-            columns[c] = await ReadColumnAsync(reader, f, n, display, c + 1).ConfigureAwait(false);
+            columns[c] = await ReadColumnAsync(reader, stream, f, n, display, c + 1).ConfigureAwait(false);
         }
         return new SourceTable(columns, n);
     }
 
-    private static async ValueTask<SourceColumn> ReadColumnAsync(ParquetReader reader, DataField f, int n, string display, int col)
+    private static async ValueTask<SourceColumn> ReadColumnAsync(ParquetReader reader, Stream stream, DataField f, int n, string display, int col)
     {
         var t = f.ClrType;
         if (t == typeof(long)) return Int(f, await ReadWideAsync<long>(reader, f, n, v => v).ConfigureAwait(false));
@@ -143,7 +144,7 @@ internal static class ParquetSourceReader
             return new SourceTimestamp(f.Name, values, validity);
         }
         if (t == typeof(ReadOnlyMemory<char>) || t == typeof(string) || t == typeof(byte[]) || t == typeof(ReadOnlyMemory<byte>))
-            return await ReadStringsAsync(reader, f, n, display, col).ConfigureAwait(false);
+            return await ReadStringsAsync(reader, stream, f, n, display, col).ConfigureAwait(false);
         throw LoadThrow.Error(ErrorCodes.Parquet, display, $"column '{f.Name}' has a type Parity does not load ({t.Name})", 0, col);
     }
 
@@ -195,12 +196,37 @@ internal static class ParquetSourceReader
         return (result, nulls == 0 ? Validity.AllValid(n) : new Validity(bits, 0, n));
     }
 
-    private static async ValueTask<SourceColumn> ReadStringsAsync(ParquetReader reader, DataField f, int n, string display, int col)
+    private static async ValueTask<SourceColumn> ReadStringsAsync(ParquetReader reader, Stream stream, DataField f, int n, string display, int col)
+    {
+        var sink = ReadStringPages(reader, stream, f, n, display, col) ?? await ReadStringsRawAsync(reader, f, n, display, col).ConfigureAwait(false);
+        var bad = sink.FirstInvalidRow();
+        if (bad >= 0) throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{f.Name}' holds invalid UTF-8", bad + 1, col);
+        return new SourceStrings(f.Name, sink.Build(), nullIsNone: true);
+    }
+
+    /// <summary>Our own page decoder (<see cref="ParquetStringChunk"/>); null when a chunk needs Parquet.Net.</summary>
+    private static ParquetUtf8Sink? ReadStringPages(ParquetReader reader, Stream stream, DataField f, int n, string display, int col)
+    {
+        var sink = new ParquetUtf8Sink(n);
+        for (var g = 0; g < reader.RowGroupCount; g++)
+        {
+            using var rg = reader.OpenRowGroupReader(g);
+            if (!rg.ColumnExists(f)) return null;
+            if (rg.GetMetadata(f) is not { MetaData: { } meta } chunk || !ParquetStringChunk.IsSupported(chunk, f.MaxDefinitionLevel)) return null;
+            var outcome = ParquetStringChunk.Read(stream, meta, checked((int)rg.RowCount), f.MaxDefinitionLevel, sink);
+            if (outcome == ParquetStringChunk.Outcome.Unsupported) return null;
+            if (outcome == ParquetStringChunk.Outcome.TooLarge)
+                throw LoadThrow.Error(ErrorCodes.FileRead, display, $"column '{f.Name}' holds more than 2 GiB of text", sink.Rows + 1, col);
+        }
+        return sink;
+    }
+
+    private static async ValueTask<ParquetUtf8Sink> ReadStringsRawAsync(ParquetReader reader, DataField f, int n, string display, int col)
     {
         // A byte[] field with the file's column path makes Parquet.Net hand out raw UTF-8 slices.
         var raw = new DataField<byte[]>(f.Name, f.IsNullable);
         _ = new ParquetSchema(raw);
-        var sink = new Utf8Sink(n, f.MaxDefinitionLevel);
+        var sink = new ParquetUtf8Sink(n);
         // One pair of slice and level arrays for every row group: fresh large arrays are slow to touch.
         ReadOnlyMemory<byte>[] values = [];
         int[] defs = [];
@@ -215,90 +241,9 @@ internal static class ParquetSourceReader
             }
             await rg.ReadRawAsync<ReadOnlyMemory<byte>>(raw, values.AsMemory(0, count), defs.AsMemory(0, count), null).ConfigureAwait(false);
             // Copied before the row group reader is disposed: the slices may point into its buffers.
-            if (!sink.Add(values, defs, count))
+            if (!sink.Add(values, defs, count, f.MaxDefinitionLevel))
                 throw LoadThrow.Error(ErrorCodes.FileRead, display, $"column '{f.Name}' holds more than 2 GiB of text", sink.Rows + 1, col);
         }
-        var bad = sink.FirstInvalidRow();
-        if (bad >= 0) throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{f.Name}' holds invalid UTF-8", bad + 1, col);
-        return new SourceStrings(f.Name, sink.Build(), nullIsNone: true);
-    }
-
-    /// <summary>
-    /// Raw UTF-8 values of one column, row group by row group, into the Arrow layout: one contiguous data
-    /// buffer (sized once from the first group's bytes per row) and int32 offsets written straight into
-    /// the Arrow offsets buffer.
-    /// </summary>
-    private sealed class Utf8Sink(int n, int maxDef)
-    {
-        private readonly byte[] _offsetBytes = new byte[((long)n + 1) * 4];
-        private readonly byte[] _bits = new byte[(n + 7) >> 3];
-        private byte[] _data = [];
-        private int _bytes;
-        private int _nulls;
-        private bool _splitStart;
-
-        public int Rows { get; private set; }
-
-        public bool Add(ReadOnlyMemory<byte>[] values, int[] defs, int count)
-        {
-            long groupBytes = 0;
-            var present = 0;
-            for (var i = 0; i < count; i++)
-            {
-                if (maxDef != 0 && defs[i] != maxDef) continue;
-                groupBytes += values[present++].Length;
-            }
-            if (_bytes + groupBytes > System.Array.MaxLength) return false;
-            if (_bytes + groupBytes > _data.Length)
-            {
-                var guess = Rows == 0 && count > 0 ? groupBytes * n / count + groupBytes / 16 + 64 : 0;
-                var size = Math.Min(System.Array.MaxLength, Math.Max(Math.Max(guess, _bytes + groupBytes), _data.Length * 2L));
-                var grown = GC.AllocateUninitializedArray<byte>((int)size);
-                _data.AsSpan(0, _bytes).CopyTo(grown);
-                _data = grown;
-            }
-            var offsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(_offsetBytes.AsSpan());
-            var dst = _data.AsSpan();
-            var at = _bytes;
-            var row = Rows;
-            var k = 0;
-            for (var i = 0; i < count; i++, row++)
-            {
-                if (maxDef == 0 || defs[i] == maxDef)
-                {
-                    var v = values[k++].Span;
-                    if (v.Length > 0 && (v[0] & 0xC0) == 0x80) _splitStart = true;
-                    v.CopyTo(dst[at..]);
-                    at += v.Length;
-                    _bits[row >> 3] |= (byte)(1 << (row & 7));
-                }
-                else
-                {
-                    _nulls++;
-                }
-                offsets[row + 1] = at;
-            }
-            _bytes = at;
-            Rows = row;
-            return true;
-        }
-
-        /// <summary>
-        /// UTF-8 is checked once over the whole buffer (vectorised), plus that no value starts with a
-        /// continuation byte: then every value is whole code points (Unicode Standard §3.9, Table 3-7; UTF-8
-        /// is self-synchronising). Only a failure looks for the first bad row; -1 when all are valid.
-        /// </summary>
-        public int FirstInvalidRow()
-        {
-            if (!_splitStart && System.Text.Unicode.Utf8.IsValid(_data.AsSpan(0, _bytes))) return -1;
-            var offsets = System.Runtime.InteropServices.MemoryMarshal.Cast<byte, int>(_offsetBytes.AsSpan());
-            for (var r = 0; r < Rows; r++)
-                if (!System.Text.Unicode.Utf8.IsValid(_data.AsSpan(offsets[r], offsets[r + 1] - offsets[r]))) return r;
-            return 0; // unreachable: a concatenation of valid UTF-8 values is valid
-        }
-
-        public StringArray Build() =>
-            new(n, new ArrowBuffer(_offsetBytes), new ArrowBuffer(_data.AsMemory(0, _bytes)),
-                _nulls == 0 ? ArrowBuffer.Empty : new ArrowBuffer(_bits), _nulls);
+        return sink;
     }
 }
