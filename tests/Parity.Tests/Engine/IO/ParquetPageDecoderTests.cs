@@ -133,6 +133,49 @@ public sealed class ParquetPageDecoderTests : IDisposable
         Assert.Throws<InvalidDataException>(() => ParquetStringChunk.Decode(chunk, chunk.Length, CompressionCodec.UNCOMPRESSED, 2, 1, new ParquetUtf8Sink(2)));
     }
 
+    [Fact]
+    public void Mutated_chunks_end_in_a_result_or_invalid_data()
+    {
+        // Fixed seed: 3,000 chunks with one to four bytes changed, cut or grown, each decoded in both level modes.
+        var dictionary = Plain("Pier 1", "Pier 2", "Σ");
+        byte[] levels = [4, 1, 2, 0, 4, 1];
+        byte[] indices = [2, 0x03, 0b10_01_10_01];
+        var seeds = new[]
+        {
+            Concat(DictionaryPage(3, dictionary.Length), dictionary, DataPageV2(5, 1, PageEncoding.RLE_DICTIONARY, levels.Length, levels.Length + indices.Length), levels, indices),
+            Concat(DataPageV1(4, PageEncoding.PLAIN, 25), Int32(2), [0x03, 0b1101], Plain("a", "ζ", "")),
+        };
+        var random = new Random(20261202);
+        var outcomes = new int[4];
+        for (var i = 0; i < 3000; i++)
+        {
+            var chunk = seeds[i % seeds.Length].ToList();
+            for (var m = random.Next(1, 5); m > 0; m--)
+            {
+                var at = random.Next(chunk.Count);
+                switch (random.Next(3))
+                {
+                    case 0: chunk[at] = (byte)random.Next(256); break;
+                    case 1: chunk.RemoveRange(at, chunk.Count - at); break;
+                    default: chunk.Insert(at, (byte)random.Next(256)); break;
+                }
+                if (chunk.Count == 0) chunk.Add(0);
+            }
+            var bytes = chunk.ToArray();
+            try
+            {
+                var outcome = ParquetStringChunk.Decode(bytes, bytes.Length, CompressionCodec.UNCOMPRESSED, 5, i % 2, new ParquetUtf8Sink(5));
+                outcomes[(int)outcome]++;
+            }
+            catch (InvalidDataException)
+            {
+                outcomes[3]++;
+            }
+        }
+        Assert.Equal(3000, outcomes.Sum());
+        Assert.True(outcomes[3] > 0 && outcomes[0] + outcomes[1] > 0, string.Join(",", outcomes));
+    }
+
     private static StringArray Decode(byte[] chunk, int rows, int maxDef)
     {
         var sink = new ParquetUtf8Sink(rows);
