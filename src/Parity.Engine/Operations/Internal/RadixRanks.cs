@@ -46,7 +46,7 @@ internal static class RadixRanks
     /// Stable sort of the first <paramref name="count"/> (key, row) pairs for many keys, cache-friendly: a
     /// range too large for the cache is split by one most-significant pass over the top 11 bits that vary in
     /// it (2,048 buckets), recursively, so skewed keys (doubles sharing an exponent) still split; a range that
-    /// fits in cache is sorted by 8-bit LSD passes over its varying bits, and a tiny one by insertion sort.
+    /// fits in cache by LSD passes over its top 16 varying bits finished by insertion sort, and a tiny one by insertion sort.
     /// Every step is stable, so equal keys keep their order.
     /// </summary>
     public static void SortLarge(ref ulong[] keys, ref int[] rows, int count)
@@ -128,16 +128,53 @@ internal static class RadixRanks
         }
     }
 
-    /// <summary>8-bit LSD passes over the varying bits of a range that fits in cache; the result ends in <paramref name="k"/>.</summary>
+    /// <summary>
+    /// A range that fits in cache: stable 8-bit LSD passes over its top 16 varying bits, then insertion sort,
+    /// which only moves keys that share those bits (few, for many distinct keys). When it moves more than
+    /// eight per key the range holds many keys alike in their top bits; it is then finished by LSD passes over
+    /// the lower bits and again over the top ones (every step is stable, so ties keep their order).
+    /// </summary>
     private static void LsdRange(ulong[] k, int[] r, ulong[] sk, int[] sr, int from, int n, ulong varying, int top, int[] hist)
     {
-        var inScratch = false;
-        for (var shift = 0; shift <= top; shift += 8)
+        var low = Math.Max(0, top + 1 - 16);
+        LsdPasses(k, r, sk, sr, from, n, varying, low, top + 1, hist);
+        if (low == 0) return;
+        var budget = 8L * n;
+        for (var i = from + 1; i < from + n; i++)
         {
-            if (((varying >> shift) & 0xFF) == 0) continue;
+            var v = k[i];
+            if (k[i - 1] <= v) continue;
+            var row = r[i];
+            var j = i - 1;
+            while (j >= from && k[j] > v)
+            {
+                k[j + 1] = k[j];
+                r[j + 1] = r[j];
+                j--;
+            }
+            budget -= i - 1 - j;
+            k[j + 1] = v;
+            r[j + 1] = row;
+            if (budget < 0)
+            {
+                LsdPasses(k, r, sk, sr, from, n, varying, 0, low, hist);
+                LsdPasses(k, r, sk, sr, from, n, varying, low, top + 1, hist);
+                return;
+            }
+        }
+    }
+
+    /// <summary>Stable 8-bit LSD passes over bits [<paramref name="fromBit"/>, <paramref name="toBit"/>) that vary; the result ends in <paramref name="k"/>.</summary>
+    private static void LsdPasses(ulong[] k, int[] r, ulong[] sk, int[] sr, int from, int n, ulong varying, int fromBit, int toBit, int[] hist)
+    {
+        var inScratch = false;
+        for (var shift = fromBit; shift < toBit; shift += 8)
+        {
+            var mask = (1UL << Math.Min(8, toBit - shift)) - 1;
+            if (((varying >> shift) & mask) == 0) continue;
             var (srcK, srcR, dstK, dstR) = inScratch ? (sk, sr, k, r) : (k, r, sk, sr);
             Array.Clear(hist);
-            for (var i = from; i < from + n; i++) hist[(int)((srcK[i] >> shift) & 0xFF)]++;
+            for (var i = from; i < from + n; i++) hist[(int)((srcK[i] >> shift) & mask)]++;
             var sum = from;
             for (var d = 0; d < 256; d++)
             {
@@ -148,7 +185,7 @@ internal static class RadixRanks
             for (var i = from; i < from + n; i++)
             {
                 var v = srcK[i];
-                var pos = hist[(int)((v >> shift) & 0xFF)]++;
+                var pos = hist[(int)((v >> shift) & mask)]++;
                 dstK[pos] = v;
                 dstR[pos] = srcR[i];
             }

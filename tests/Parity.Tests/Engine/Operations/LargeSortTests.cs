@@ -67,4 +67,19 @@ public sealed class LargeSortTests
         var expected = Enumerable.Range(0, n).OrderBy(i => values[i]).ToArray(); // stable (LINQ OrderBy)
         Assert.Equal(expected, Sorting.Permutation(table, [new SortKey("id", false)]));
     }
+
+    [Fact]
+    public void Keys_alike_in_their_top_bits_sort_stably()
+    {
+        // Four clusters far apart, each with 2^20 low values and many ties: inside a bucket the top 16 varying
+        // bits barely differ, so insertion sort would move too much and the in-cache step finishes by LSD passes.
+        const int n = 200_000;
+        var rng = new Random(12);
+        var values = new long[n];
+        for (var i = 0; i < n; i++) values[i] = ((long)rng.Next(4) << 40) + (rng.Next(2) == 0 ? rng.Next(1 << 20) : rng.Next(64));
+        var table = new Table(["id"], [new Int64Column(values, MissingMarker.Null)], n);
+        var expected = Enumerable.Range(0, n).OrderBy(i => values[i]).ToArray(); // stable (LINQ OrderBy)
+        Assert.Equal(expected, Sorting.Permutation(table, [new SortKey("id", false)]));
+        Assert.Equal(Enumerable.Range(0, n).OrderByDescending(i => values[i]).ToArray(), Sorting.Permutation(table, [new SortKey("id", true)]));
+    }
 }
