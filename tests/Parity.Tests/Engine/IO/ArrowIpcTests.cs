@@ -137,12 +137,14 @@ public sealed class ArrowIpcTests : IDisposable
     [InlineData(new[] { 0, 2, 1, 3 }, 2)] // a decrease at offset 2
     [InlineData(new[] { 0, 1, -5, 3 }, 2)] // a negative offset: its difference from 1 must not pass as an increase
     [InlineData(new[] { 0, 1, 2, 9 }, 0)] // past the 3-byte data buffer: the message check finds it before any row is read
+    [InlineData(new[] { 0, 1, 2, 3, 3, 3, 3, 3, 3, 3, 3, 3, 3, 3, 2, 3, 3, 3, 3, 3 }, 14)] // inside the vectorised part
     public void Bad_string_offsets_are_located(int[] offsetValues, int row)
     {
         // Apache Arrow columnar format, "Variable-size Binary Layout": offsets are non-decreasing and within the data.
         var offsets = new ArrowBuffer(MemoryMarshal.AsBytes<int>(offsetValues).ToArray());
-        var array = new StringArray(3, offsets, new ArrowBuffer("abc"u8.ToArray()), ArrowBuffer.Empty, 0, 0);
-        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], 3);
+        var length = offsetValues.Length - 1;
+        var array = new StringArray(length, offsets, new ArrowBuffer("abc"u8.ToArray()), ArrowBuffer.Empty, 0, 0);
+        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], length);
         var path = _files.PathOf("offsets.arrow");
         using (var fs = File.Create(path))
         {
