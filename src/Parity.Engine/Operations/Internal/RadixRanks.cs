@@ -72,21 +72,7 @@ internal static class RadixRanks
     {
         if (n <= 32)
         {
-            // Insertion sort: stable (moves only past strictly greater keys).
-            for (var i = from + 1; i < from + n; i++)
-            {
-                var v = k[i];
-                var row = r[i];
-                var j = i - 1;
-                while (j >= from && k[j] > v)
-                {
-                    k[j + 1] = k[j];
-                    r[j + 1] = r[j];
-                    j--;
-                }
-                k[j + 1] = v;
-                r[j + 1] = row;
-            }
+            InsertionSort(k, r, from, n, long.MaxValue);
             return;
         }
         ulong any = 0, all = ulong.MaxValue;
@@ -138,8 +124,17 @@ internal static class RadixRanks
     {
         var low = Math.Max(0, top + 1 - 16);
         LsdPasses(k, r, sk, sr, from, n, varying, low, top + 1, hist);
-        if (low == 0) return;
-        var budget = 8L * n;
+        if (low == 0 || InsertionSort(k, r, from, n, 8L * n)) return;
+        LsdPasses(k, r, sk, sr, from, n, varying, 0, low, hist);
+        LsdPasses(k, r, sk, sr, from, n, varying, low, top + 1, hist);
+    }
+
+    /// <summary>
+    /// Stable insertion sort (a key moves only past strictly greater ones); stops, false, once it has moved
+    /// more than <paramref name="budget"/> keys, leaving the range a stable rearrangement of its input.
+    /// </summary>
+    private static bool InsertionSort(ulong[] k, int[] r, int from, int n, long budget)
+    {
         for (var i = from + 1; i < from + n; i++)
         {
             var v = k[i];
@@ -152,16 +147,12 @@ internal static class RadixRanks
                 r[j + 1] = r[j];
                 j--;
             }
-            budget -= i - 1 - j;
             k[j + 1] = v;
             r[j + 1] = row;
-            if (budget < 0)
-            {
-                LsdPasses(k, r, sk, sr, from, n, varying, 0, low, hist);
-                LsdPasses(k, r, sk, sr, from, n, varying, low, top + 1, hist);
-                return;
-            }
+            budget -= i - 1 - j;
+            if (budget < 0) return false;
         }
+        return true;
     }
 
     /// <summary>Stable 8-bit LSD passes over bits [<paramref name="fromBit"/>, <paramref name="toBit"/>) that vary; the result ends in <paramref name="k"/>.</summary>
