@@ -339,7 +339,7 @@ internal static class ArrowSourceReader
         }
         var bytes = data[first..last];
         // ASCII is valid UTF-8 and no value can start inside a character: the common case ends here.
-        if (System.Text.Ascii.IsValid(bytes)) return;
+        if (IsAscii(a.ValueBuffer.Memory[first..last])) return;
         if (!System.Text.Unicode.Utf8.IsValid(bytes))
         {
             for (var i = 0; i < n; i++)
@@ -354,6 +354,30 @@ internal static class ArrowSourceReader
             if (offsets[i + 1] > o && (data[o] & 0xC0) == 0x80)
                 throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i + 1, col);
         }
+    }
+
+    /// <summary>
+    /// The ASCII test over a data buffer: memory-bound, so a large buffer is split across the cores (a mapped
+    /// file's pages are also faulted in on both); the answer does not depend on the split.
+    /// </summary>
+    private static bool IsAscii(ReadOnlyMemory<byte> bytes)
+    {
+        const int ParallelFrom = 16 << 20;
+        if (bytes.Length < ParallelFrom || Environment.ProcessorCount < 2) return System.Text.Ascii.IsValid(bytes.Span);
+        var parts = Environment.ProcessorCount * 2;
+        var size = bytes.Length / parts + 1;
+        var ascii = true;
+        Parallel.For(0, parts, (part, state) =>
+        {
+            var start = Math.Min(bytes.Length, part * size);
+            var piece = bytes.Span.Slice(start, Math.Min(size, bytes.Length - start));
+            if (!System.Text.Ascii.IsValid(piece))
+            {
+                ascii = false;
+                state.Stop();
+            }
+        });
+        return ascii;
     }
 
     /// <summary>

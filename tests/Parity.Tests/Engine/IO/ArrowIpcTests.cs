@@ -134,6 +134,32 @@ public sealed class ArrowIpcTests : IDisposable
     }
 
     [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void A_large_buffer_is_checked_whole_when_split_across_cores(bool broken)
+    {
+        // 18 MB of ASCII (the ASCII test runs in parts from 16 MB) with one value near the end that is not ASCII:
+        // U+00E9 (C3 A9) is valid UTF-8; a lone A9 is not (Unicode, UTF-8, Table 3-7).
+        const int n = 600_000;
+        var b = new Utf8ColumnBuilder(n, n * 30);
+        var filler = new string('a', 30);
+        for (var i = 0; i < n - 2; i++) b.Append(filler);
+        b.Append(broken ? new byte[] { 0x41, 0xA9 } : "Aé"u8);
+        b.Append("z");
+        var path = _files.PathOf("large.arrow");
+        ArrowIpcWriter.Write(new Table(["s"], [b.Build(MissingMarker.Null)], n), path);
+        if (broken)
+        {
+            var ex = Assert.Throws<Parity.Engine.Errors.EngineException>(() => DataLoader.Load(path, LoadOptions.Default, Mode.Modern));
+            Assert.Equal("E-UTF8", ex.Code);
+            Assert.Equal(n - 1, ex.Row);
+            return;
+        }
+        var s = DataLoader.Load(path, LoadOptions.Default, Mode.Modern)["s"];
+        Assert.Equal("Aé", s.GetValue(n - 2).String);
+    }
+
+    [Theory]
     [InlineData(new[] { 0, 2, 1, 3 }, 2)] // a decrease at offset 2
     [InlineData(new[] { 0, 1, -5, 3 }, 2)] // a negative offset: its difference from 1 must not pass as an increase
     [InlineData(new[] { 0, 1, 2, 9 }, 0)] // past the 3-byte data buffer: the message check finds it before any row is read
