@@ -117,12 +117,7 @@ internal static class ArrowSourceReader
         }
     }
 
-    /// <summary>
-    /// One source column per schema field, the batches of each concatenated (none: an empty array). The batches
-    /// are taken apart into per-column parts first, and each column's parts are let go once it is assembled: a
-    /// streamed file's batches are managed buffers, and holding every batch until the last column is done held
-    /// the whole file twice at the end.
-    /// </summary>
+    /// <summary>One source column per schema field, the batches of each concatenated (none: an empty array).</summary>
     private static SourceTable Assemble(Schema? readSchema, List<RecordBatch> batches, string display, ref int col)
     {
         var schema = readSchema ?? throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "no schema message");
@@ -130,21 +125,13 @@ internal static class ArrowSourceReader
         foreach (var b in batches) rows += b.Length;
         if (rows > System.Array.MaxLength) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"{rows} rows are more than one table can hold");
         var columns = new SourceColumn[schema.FieldsList.Count];
-        var parts = new List<IArrowArray>?[columns.Length];
-        for (var c = 0; c < columns.Length; c++)
-        {
-            parts[c] = new List<IArrowArray>(batches.Count);
-            foreach (var b in batches) parts[c]!.Add(b.Column(c));
-        }
-        batches.Clear();
         for (var c = 0; c < columns.Length; c++)
         {
             col = c + 1;
             var field = schema.FieldsList[c];
-            var own = parts[c]!;
-            parts[c] = null;
-            IArrowArray array = own.Count == 1 ? own[0] : own.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(own, ManagedAllocator.Instance);
-            own.Clear();
+            var parts = new List<IArrowArray>(batches.Count);
+            foreach (var b in batches) parts.Add(b.Column(c));
+            IArrowArray array = parts.Count == 1 ? parts[0] : parts.Count == 0 ? EmptyOf(field.DataType, display, col) : ArrowArrayConcatenator.Concatenate(parts, ManagedAllocator.Instance);
             columns[c] = Convert(field.Name, array, display, col);
         }
         return new SourceTable(columns, (int)rows);
