@@ -8,7 +8,8 @@ namespace Parity.Engine.IO;
 /// <summary>
 /// Loads CSV, Parquet and Arrow IPC files into a table for one mode (spec §2.1, §6). A file is parsed once
 /// into a mode-neutral form (typed buffers plus validity) that a small cache keeps, keyed by full path,
-/// options, size and last write time, so loading it for several modes converts without re-parsing.
+/// options, size and last write time, so loading it for several modes converts without re-parsing
+/// (<see cref="LoadOptions.KeepParsed"/> false for the last of them).
 /// </summary>
 public static class DataLoader
 {
@@ -81,7 +82,7 @@ public static class DataLoader
             {
                 if (!string.Equals(node.Value.Key, key, StringComparison.Ordinal)) continue;
                 Cache.Remove(node);
-                Cache.AddFirst(node);
+                if (options.KeepParsed) Cache.AddFirst(node);
                 return node.Value.Source;
             }
         }
@@ -91,6 +92,7 @@ public static class DataLoader
             "parquet" => ParquetSourceReader.Read(full, display),
             _ => ArrowSourceReader.Read(full, display),
         };
+        if (!options.KeepParsed) return source;
         lock (Gate)
         {
             Cache.AddFirst((key, source));

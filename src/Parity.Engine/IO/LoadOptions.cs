@@ -14,6 +14,13 @@ public sealed record LoadOptions
     /// <summary>CSV field separator.</summary>
     public char Delimiter { get; init; } = ',';
 
+    /// <summary>
+    /// Whether the parsed, mode-neutral form stays in the loader's cache for the next mode to convert. A run
+    /// of the last (or only) mode says false: the cached form would sit next to the table it became, which
+    /// under a boxed mode is gigabytes on a large file, and a cached entry it finds is dropped.
+    /// </summary>
+    public bool KeepParsed { get; init; } = true;
+
     /// <summary>Path shown in error messages (as the user wrote it); defaults to the path loaded.</summary>
     public string? DisplayPath { get; init; }
 }

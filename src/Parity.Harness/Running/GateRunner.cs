@@ -30,7 +30,12 @@ public static class GateRunner
         }
         var dir = Path.GetDirectoryName(fullPath) ?? workingDirectory;
         var runs = new List<ModeRun>(modes.Count);
-        foreach (var mode in modes) runs.Add(Interpreter.Run(parsed.Script, mode, dir, options));
+        for (var i = 0; i < modes.Count; i++)
+        {
+            // The last mode needs no cached parse of the files for a mode after it.
+            var last = i == modes.Count - 1;
+            runs.Add(Interpreter.Run(parsed.Script, modes[i], dir, last ? options with { KeepParsedSources = false } : options));
+        }
         return new ScriptOutcome { Script = shown, Runs = runs };
     }
 

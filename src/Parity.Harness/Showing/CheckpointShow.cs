@@ -37,7 +37,8 @@ public static class CheckpointShow
             return new ShowResult(label, mode.Name, null, messages);
         }
 
-        var run = Interpreter.Run(parsed.Script, mode, scriptDirectory, options);
+        // One mode only: no other run will convert the files again, so the loader keeps no parsed copy.
+        var run = Interpreter.Run(parsed.Script, mode, scriptDirectory, options with { KeepParsedSources = false });
         var checkpoint = run.FindCheckpoint(label);
         if (checkpoint is null)
         {

@@ -13,6 +13,12 @@ public sealed record RunOptions
     /// <summary>Most rows a derived frame (a join, an append) may have before the run stops with E-LIMIT.</summary>
     public long MaxRows { get; init; } = 200_000_000;
 
+    /// <summary>
+    /// Whether loads keep their parsed form cached for another mode's run of the same files
+    /// (<see cref="Parity.Engine.IO.LoadOptions.KeepParsed"/>); false for the last or only mode.
+    /// </summary>
+    public bool KeepParsedSources { get; init; } = true;
+
     /// <summary>Most UTF-8 bytes one string cell may have before the run stops with E-LIMIT.</summary>
     public long MaxStringBytes { get; init; } = 256L * 1024 * 1024;
 }

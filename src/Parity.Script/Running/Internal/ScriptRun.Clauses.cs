@@ -26,10 +26,20 @@ internal sealed partial class ScriptRun
         var name = source.Name;
         if (derivation.Clauses.Count == 0)
             return (_mode.IsAlias ? frame.View(0, frame.RowCount) : Frame.Derive(frame.Snapshot(), _mode), copied);
-        foreach (var clause in derivation.Clauses)
+        var clauses = derivation.Clauses;
+        for (var i = 0; i < clauses.Count; i++)
         {
-            frame = Apply(clause, frame, name);
+            var clause = clauses[i];
             copied |= clause is not (TakeClause or SkipClause or ColumnClause);
+            if (clause is OrderByClause order && i + 1 < clauses.Count && clauses[i + 1] is TakeClause take)
+            {
+                // order by ... take N: gather only the first N rows of the permutation instead of the whole
+                // sorted frame (a view of which would keep every sorted row alive under alias).
+                frame = OrderBy(order, frame.Snapshot(), name, take.Count);
+                i++;
+                continue;
+            }
+            frame = Apply(clause, frame, name);
         }
         return (frame, copied);
     }
@@ -42,7 +52,7 @@ internal sealed partial class ScriptRun
             case WhereClause w:
             {
                 var keep = Mask(w.Condition, new Scope(table, name), "rows dropped because the condition was null");
-                return Derived(Kernel(w, () => TableOps.Filter(table, keep)));
+                return Derived(table, Kernel(w, () => TableOps.Filter(table, keep)));
             }
             case TakeClause t:
             {
@@ -58,7 +68,7 @@ internal sealed partial class ScriptRun
             {
                 RequireColumn(c.Column, table, name);
                 if (_mode.IsAlias) return frame.ViewColumn(c.Column.Name);
-                return Derived(new Table([c.Column.Name], [table[c.Column.Name]], table.RowCount));
+                return Derived(table, new Table([c.Column.Name], [table[c.Column.Name]], table.RowCount));
             }
             case SelectClause sel:
             {
@@ -71,7 +81,7 @@ internal sealed partial class ScriptRun
                     names.Add(id.Name);
                     cols.Add(table[id.Name]);
                 }
-                return Derived(new Table(names, cols, table.RowCount));
+                return Derived(table, new Table(names, cols, table.RowCount));
             }
             case RenameClause r:
             {
@@ -84,7 +94,7 @@ internal sealed partial class ScriptRun
                     if (j >= 0 && j != i) throw Error(ErrorCodes.DupColumn, $"frame '{name}' already has a column '{pair.To.Name}'", pair.To.Span);
                     names[i] = pair.To.Name;
                 }
-                return Derived(new Table(names, table.Columns, table.RowCount));
+                return Derived(table, new Table(names, table.Columns, table.RowCount));
             }
             case CastClause cast:
             {
@@ -97,7 +107,7 @@ internal sealed partial class ScriptRun
                     var src = cols[i];
                     cols[i] = Kernel(item.Column, () => Casts.Cast(src, target, _mode));
                 }
-                return Derived(new Table(table.Names, cols, table.RowCount));
+                return Derived(table, new Table(table.Names, cols, table.RowCount));
             }
             case AddClause add:
             {
@@ -117,7 +127,7 @@ internal sealed partial class ScriptRun
                         cols.Add(stored);
                     }
                 }
-                return Derived(new Table(names, cols, table.RowCount));
+                return Derived(table, new Table(names, cols, table.RowCount));
             }
             case FillClause fill:
             {
@@ -132,26 +142,17 @@ internal sealed partial class ScriptRun
                     for (var r = 0; r < missing.Length; r++) missing[r] = old.IsMissing(r);
                     cols[i] = Kernel(item.Name, () => Blending.Blend(old, value, missing, _mode));
                 }
-                return Derived(new Table(table.Names, cols, table.RowCount));
+                return Derived(table, new Table(table.Names, cols, table.RowCount));
             }
             case DropMissingClause drop:
             {
                 var names = ColumnList(drop.Columns, table, name);
-                return Derived(Kernel(drop, () => TableOps.DropMissing(table, names)));
+                return Derived(table, Kernel(drop, () => TableOps.DropMissing(table, names)));
             }
             case OrderByClause order:
-            {
-                var keys = new List<SortKey>(order.Keys.Count);
-                foreach (var k in order.Keys)
-                {
-                    RequireColumn(k.Column, table, name);
-                    keys.Add(new SortKey(k.Column.Name, k.Descending));
-                }
-                var perm = Kernel(order, () => Sorting.Permutation(table, keys));
-                return Derived(Kernel(order, () => TableOps.Gather(table, perm, _mode)));
-            }
+                return OrderBy(order, table, name, null);
             case GroupByClause group:
-                return Derived(Group(group, table, name));
+                return Derived(table, Group(group, table, name));
             case JoinClause join:
             {
                 var other = Named(join.Other);
@@ -159,7 +160,7 @@ internal sealed partial class ScriptRun
                 var rightKey = join.RightKey ?? join.LeftKey;
                 RequireColumn(join.LeftKey, table, name);
                 RequireColumn(rightKey, right, other.Name);
-                return Derived(Kernel(join, () => Joining.Join(table, right, join.LeftKey.Name, rightKey.Name, join.Kind == JoinKind.Left, _mode, _options.MaxRows)));
+                return Derived(table, Kernel(join, () => Joining.Join(table, right, join.LeftKey.Name, rightKey.Name, join.Kind == JoinKind.Left, _mode, _options.MaxRows)));
             }
             case AppendClause append:
             {
@@ -167,20 +168,39 @@ internal sealed partial class ScriptRun
                 var bottom = other.Frame.Snapshot();
                 if ((long)table.RowCount + bottom.RowCount > _options.MaxRows)
                     throw Error(ErrorCodes.Limit, $"append would make {((long)table.RowCount + bottom.RowCount).ToString(CultureInfo.InvariantCulture)} rows, more than the limit of {_options.MaxRows.ToString(CultureInfo.InvariantCulture)}", append.Span);
-                return Derived(Kernel(append, () => Appending.Append(table, bottom, _mode)));
+                return Derived(table, Kernel(append, () => Appending.Append(table, bottom, _mode)));
             }
             case DistinctClause distinct:
             {
                 var names = ColumnList(distinct.Columns, table, name);
                 var rows = Kernel(distinct, () => Distinct.FirstRows(table, names));
-                return Derived(Kernel(distinct, () => TableOps.Gather(table, rows, _mode)));
+                return Derived(table, Kernel(distinct, () => TableOps.Gather(table, rows, _mode)));
             }
             default:
                 throw Error(ErrorCodes.Internal, "unknown clause", clause.Span);
         }
     }
 
-    private Frame Derived(Table table) => Frame.Derive(table, _mode);
+    /// <summary>A derived frame of <paramref name="result"/>; under <c>alias</c> the columns it shares with <paramref name="input"/> are copied.</summary>
+    private Frame Derived(Table input, Table result) => Frame.Derive(result, _mode, input);
+
+    /// <summary>
+    /// <c>order by</c>, and with <paramref name="take"/> the <c>take N</c> after it: the same stable permutation
+    /// either way, so the rows are exactly those of a full sort followed by <c>take</c>; only the first N are
+    /// gathered.
+    /// </summary>
+    private Frame OrderBy(OrderByClause order, Table table, string name, long? take)
+    {
+        var keys = new List<SortKey>(order.Keys.Count);
+        foreach (var k in order.Keys)
+        {
+            RequireColumn(k.Column, table, name);
+            keys.Add(new SortKey(k.Column.Name, k.Descending));
+        }
+        var perm = Kernel(order, () => Sorting.Permutation(table, keys));
+        if (take is { } n && n < perm.Length) perm = perm.AsSpan(0, (int)Math.Max(0, n)).ToArray();
+        return Derived(table, Kernel(order, () => TableOps.Gather(table, perm, _mode)));
+    }
 
     /// <summary>Rows [offset, offset+length): a view under <c>alias</c>; under <c>cow</c> O(1) slices of the same buffers.</summary>
     private Frame Rows(Frame frame, Table table, int offset, int length)
@@ -189,7 +209,7 @@ internal sealed partial class ScriptRun
         var cols = new Column[table.ColumnCount];
         for (var i = 0; i < cols.Length; i++)
             cols[i] = offset == 0 && length == table.RowCount ? table.Columns[i] : table.Columns[i].Slice(offset, length);
-        return Derived(new Table(table.Names, cols, length));
+        return Derived(table, new Table(table.Names, cols, length));
     }
 
     private ColumnType TypeOf(CastTarget target) => target switch

@@ -21,6 +21,9 @@ internal sealed partial class ScriptRun
     private readonly ModeRun _run;
     private readonly Dictionary<string, NamedFrame> _frames = new(StringComparer.Ordinal);
     private readonly HashSet<string> _labels = new(StringComparer.Ordinal);
+    private readonly List<string>[] _lastMentions;
+    private readonly HashSet<string> _unused = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _released = new(StringComparer.Ordinal);
 
     public ScriptRun(ScriptNode script, Mode mode, string directory, RunOptions options, IReadOnlyDictionary<string, Table>? preloaded)
     {
@@ -29,6 +32,7 @@ internal sealed partial class ScriptRun
         _directory = directory;
         _options = options;
         _run = new ModeRun(mode, script.File);
+        _lastMentions = FrameLifetimes.LastMentions(script.Statements);
         if (preloaded is not null)
             foreach (var (name, table) in preloaded)
                 _frames[name] = new NamedFrame(name, Frame.FromTable(table), false);
@@ -36,11 +40,13 @@ internal sealed partial class ScriptRun
 
     public ModeRun Execute()
     {
-        foreach (var statement in _script.Statements)
+        for (var index = 0; index < _script.Statements.Count; index++)
         {
+            var statement = _script.Statements[index];
             try
             {
                 Execute(statement);
+                Release(index);
             }
             catch (ScriptException e)
             {
@@ -62,6 +68,45 @@ internal sealed partial class ScriptRun
         return _run;
     }
 
+    /// <summary>
+    /// Lets go of the frames that no later statement mentions. Nothing a run records can depend on them
+    /// any more, with one exception: under <c>alias</c> a frame that shares a slot with a frame still in use
+    /// (a view, or the parent of one) is reached by writes into that frame and listed in their aliasing sets,
+    /// so it stays until no frame shares its slots.
+    /// </summary>
+    private void Release(int index)
+    {
+        foreach (var name in _lastMentions[index]) _unused.Add(name);
+        if (_unused.Count == 0) return;
+        bool dropped;
+        do
+        {
+            dropped = false;
+            foreach (var name in _unused)
+            {
+                if (_frames.TryGetValue(name, out var frame) && SharesSlots(name, frame.Frame)) continue;
+                _frames.Remove(name);
+                _released.Add(name);
+                _unused.Remove(name);
+                dropped = true;
+                break;
+            }
+        }
+        while (dropped && _unused.Count > 0);
+    }
+
+    private bool SharesSlots(string name, Frame frame)
+    {
+        foreach (var (other, f) in _frames)
+        {
+            if (string.Equals(other, name, StringComparison.Ordinal)) continue;
+            foreach (var a in f.Frame.Columns)
+                foreach (var b in frame.Columns)
+                    if (ReferenceEquals(a.Slot, b.Slot)) return true;
+        }
+        return false;
+    }
+
     private void Execute(Statement statement)
     {
         switch (statement)
@@ -77,7 +122,7 @@ internal sealed partial class ScriptRun
     private void Load(LoadStatement load)
     {
         var full = ResolvePath(load);
-        var options = new LoadOptions { DisplayPath = load.Path, Format = load.Format?.Name.ToLowerInvariant() };
+        var options = new LoadOptions { DisplayPath = load.Path, Format = load.Format?.Name.ToLowerInvariant(), KeepParsed = _options.KeepParsedSources };
         foreach (var o in load.Options)
         {
             switch (o.Key.Name.ToLowerInvariant())
@@ -163,7 +208,7 @@ internal sealed partial class ScriptRun
     private NamedFrame Named(Identifier id)
     {
         if (_frames.TryGetValue(id.Name, out var f)) return f;
-        throw Error(ErrorCodes.UnknownFrame, $"no frame named '{id.Name}'" + NameSuggester.DidYouMean(id.Name, _frames.Keys), id.Span);
+        throw Error(ErrorCodes.UnknownFrame, $"no frame named '{id.Name}'" + NameSuggester.DidYouMean(id.Name, _frames.Keys.Concat(_released)), id.Span);
     }
 
     private Diagnostic Diag(string code, string message, SourceSpan span) => new(code, message, _script.File, span);
