@@ -76,13 +76,14 @@ public static class DataLoader
             options.MissingTokens is null ? "\u0000" : string.Join('\u001e', options.MissingTokens),
             info.Length.ToString(System.Globalization.CultureInfo.InvariantCulture),
             info.LastWriteTimeUtc.Ticks.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        var keep = options.KeepParsed || info.Length < options.AlwaysKeepBelowBytes;
         lock (Gate)
         {
             for (var node = Cache.First; node is not null; node = node.Next)
             {
                 if (!string.Equals(node.Value.Key, key, StringComparison.Ordinal)) continue;
                 Cache.Remove(node);
-                if (options.KeepParsed) Cache.AddFirst(node);
+                if (keep) Cache.AddFirst(node);
                 return node.Value.Source;
             }
         }
@@ -92,7 +93,7 @@ public static class DataLoader
             "parquet" => ParquetSourceReader.Read(full, display),
             _ => ArrowSourceReader.Read(full, display),
         };
-        if (!options.KeepParsed) return source;
+        if (!keep) return source;
         lock (Gate)
         {
             Cache.AddFirst((key, source));

@@ -17,9 +17,16 @@ public sealed record LoadOptions
     /// <summary>
     /// Whether the parsed, mode-neutral form stays in the loader's cache for the next mode to convert. A run
     /// of the last (or only) mode says false: the cached form would sit next to the table it became, which
-    /// under a boxed mode is gigabytes on a large file, and a cached entry it finds is dropped.
+    /// under a boxed mode is gigabytes on a large file, and a cached entry it finds is dropped. Files below
+    /// <see cref="AlwaysKeepBelowBytes"/> stay cached either way.
     /// </summary>
     public bool KeepParsed { get; init; } = true;
+
+    /// <summary>
+    /// File size below which a parse stays cached even when <see cref="KeepParsed"/> is false: such files cost
+    /// little memory, and a gate over many scripts that load the same fixtures then parses each once.
+    /// </summary>
+    public long AlwaysKeepBelowBytes { get; init; } = 64L << 20;
 
     /// <summary>Path shown in error messages (as the user wrote it); defaults to the path loaded.</summary>
     public string? DisplayPath { get; init; }
