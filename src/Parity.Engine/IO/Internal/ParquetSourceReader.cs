@@ -84,6 +84,7 @@ internal static class ParquetSourceReader
 
     private static async ValueTask<SourceTable> ReadAsync(Stream stream, string display, Action<int> at)
     {
+        if (ParquetFooterCheck.Problem(stream) is { } problem) throw LoadThrow.Error(ErrorCodes.Parquet, display, problem);
         await using var reader = await OpenAsync(stream, display).ConfigureAwait(false);
         var fields = reader.Schema.Fields;
         var dataFields = reader.Schema.GetDataFields();
@@ -105,6 +106,12 @@ internal static class ParquetSourceReader
             var f = dataFields[c];
             if (f.MaxRepetitionLevel > 0)
                 throw LoadThrow.Error(ErrorCodes.Parquet, display, $"column '{f.Name}' is repeated (a list); not supported", 0, c + 1);
+            for (var g = 0; g < reader.RowGroupCount; g++)
+            {
+                using var rg = reader.OpenRowGroupReader(g);
+                if (rg.ColumnExists(f) && rg.GetMetadata(f) is { MetaData: { } meta } && ParquetChunkCheck.Problem(stream, meta, rg.RowCount) is { } bad)
+                    throw LoadThrow.Error(ErrorCodes.Parquet, display, $"column '{f.Name}': {bad}", 0, c + 1);
+            }
             columns[c] = await ReadColumnAsync(reader, stream, f, n, display, c + 1).ConfigureAwait(false);
         }
         return new SourceTable(columns, n);

@@ -1,7 +1,7 @@
 namespace Parity.Engine.IO.Internal.ParquetPages;
 
 /// <summary>
-/// The few parts of the Thrift compact protocol that a Parquet page header uses (Parquet format,
+/// The few parts of the Thrift compact protocol that Parquet page headers and footers use (Parquet format,
 /// "parquet.thrift"; Thrift compact protocol spec): zigzag varints, field headers with id deltas, and skipping
 /// of fields we do not read. Every read is bounds-checked and nesting is capped, so a corrupt header ends in
 /// <see cref="InvalidDataException"/>, never a wild read or a stack overflow.
@@ -39,7 +39,9 @@ internal ref struct ThriftCompactReader
     {
         var b = ReadByte();
         var type = (byte)(b & 0x0F);
-        if (type == Stop) return (0, Stop);
+        // STOP is the single byte 0; a field header with type 0 and an id delta is not Thrift (and makes
+        // Parquet.Net 6.1.0 loop forever when it is the footer's last byte).
+        if (type == Stop) return b == 0 ? ((short)0, Stop) : throw Corrupt("a field header of type 0");
         var delta = b >> 4;
         var id = delta != 0 ? (short)(previousId + delta) : (short)ZigZag(ReadVarint());
         return (id, type);
@@ -112,6 +114,46 @@ internal ref struct ThriftCompactReader
         }
     }
 
+    /// <summary>
+    /// Skips one struct while checking the types of the fields <paramref name="shape"/> knows (by struct name and
+    /// field id): a field of another type than the format defines is corrupt. Nested structs and lists of
+    /// structs are checked with their own names; unknown fields are skipped.
+    /// </summary>
+    public void SkipStruct(string name, IReadOnlyDictionary<(string Struct, short Field), (byte Type, string? Nested)> shape, int depth = 0)
+    {
+        if (depth > MaxDepth) throw Corrupt("nested too deeply");
+        short id = 0;
+        while (true)
+        {
+            var (next, type) = ReadFieldHeader(id);
+            if (type == Stop) return;
+            id = next;
+            if (!shape.TryGetValue((name, id), out var expected))
+            {
+                Skip(type, depth + 1);
+                continue;
+            }
+            var isBool = type is BoolTrue or BoolFalse;
+            if (type != expected.Type && !(isBool && expected.Type == BoolTrue))
+                throw Corrupt($"{name} field {id} has type {type}, not {expected.Type}");
+            if (type == Struct && expected.Nested is { } nested)
+            {
+                SkipStruct(nested, shape, depth + 1);
+            }
+            else if (type == List && expected.Nested is { } element)
+            {
+                var head = ReadByte();
+                var size = head >> 4 == 15 ? Length(ReadVarint()) : head >> 4;
+                if ((head & 0x0F) != Struct) throw Corrupt($"{name} field {id} is a list of type {head & 0x0F}, not of structs");
+                for (var i = 0; i < size; i++) SkipStruct(element, shape, depth + 1);
+            }
+            else
+            {
+                Skip(type, depth + 1);
+            }
+        }
+    }
+
     private int Length(long n)
     {
         if (n < 0 || n > _bytes.Length - Position) throw Corrupt("a length past the end");
@@ -144,5 +186,5 @@ internal ref struct ThriftCompactReader
 
     private static long ZigZag(long n) => (long)((ulong)n >> 1) ^ -(n & 1);
 
-    private static InvalidDataException Corrupt(string what) => new("corrupt page header: " + what);
+    private static InvalidDataException Corrupt(string what) => new("corrupt Thrift data: " + what);
 }
