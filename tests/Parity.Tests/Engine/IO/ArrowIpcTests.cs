@@ -18,6 +18,18 @@ public sealed class ArrowIpcTests : IDisposable
 
     public void Dispose() => _files.Dispose();
 
+    /// <summary>One string column named <c>name</c> in one batch, written by Apache.Arrow's own file writer.</summary>
+    private string WriteStrings(string file, StringArray array, int length)
+    {
+        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], length);
+        var path = _files.PathOf(file);
+        using var fs = File.Create(path);
+        using var w = new ArrowFileWriter(fs, batch.Schema);
+        w.WriteRecordBatch(batch);
+        w.WriteEnd();
+        return path;
+    }
+
     [Fact]
     public void Csv_strings_follow_the_arrow_utf8_layout()
     {
@@ -170,14 +182,7 @@ public sealed class ArrowIpcTests : IDisposable
         var offsets = new ArrowBuffer(MemoryMarshal.AsBytes<int>(offsetValues).ToArray());
         var length = offsetValues.Length - 1;
         var array = new StringArray(length, offsets, new ArrowBuffer("abc"u8.ToArray()), ArrowBuffer.Empty, 0, 0);
-        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], length);
-        var path = _files.PathOf("offsets.arrow");
-        using (var fs = File.Create(path))
-        {
-            using var w = new ArrowFileWriter(fs, batch.Schema);
-            w.WriteRecordBatch(batch);
-            w.WriteEnd();
-        }
+        var path = WriteStrings("offsets.arrow", array, length);
         var ex = Assert.Throws<Parity.Engine.Errors.EngineException>(() => DataLoader.Load(path, LoadOptions.Default, Mode.Modern));
         Assert.Equal("E-ARROW", ex.Code);
         Assert.Equal(row, ex.Row);
@@ -191,14 +196,7 @@ public sealed class ArrowIpcTests : IDisposable
         var offsets = new ArrowBuffer(MemoryMarshal.AsBytes<int>(new[] { 0, 1, 2 }).ToArray());
         var data = new ArrowBuffer(new byte[] { 0xC3, 0xA9 });
         var array = new StringArray(2, offsets, data, ArrowBuffer.Empty, 0, 0);
-        var batch = new RecordBatch(new Schema.Builder().Field(f => f.Name("name").DataType(StringType.Default)).Build(), [array], 2);
-        var path = _files.PathOf("split.arrow");
-        using (var fs = File.Create(path))
-        {
-            using var w = new ArrowFileWriter(fs, batch.Schema);
-            w.WriteRecordBatch(batch);
-            w.WriteEnd();
-        }
+        var path = WriteStrings("split.arrow", array, 2);
         var ex = Assert.Throws<Parity.Engine.Errors.EngineException>(() => DataLoader.Load(path, LoadOptions.Default, Mode.Modern));
         Assert.Equal("E-UTF8", ex.Code);
         Assert.Equal(2, ex.Row);
