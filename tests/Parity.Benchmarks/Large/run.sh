@@ -1,10 +1,10 @@
 #!/usr/bin/env bash
 # The large-input measurements of docs/reliability.md "Large inputs", one run at a time.
-# Usage: tests/Parity.Benchmarks/Large/run.sh ROWS DIR   (e.g. 20000000 /work/large; 2000000 for a quick look)
+# Usage: tests/Parity.Benchmarks/Large/run.sh ROWS DIR   (e.g. 20000000 /tmp/large; 2000000 for a quick look)
 # Makes DIR/wide.csv (seeded, about 150 bytes a row) and its Arrow IPC and Parquet copies unless they exist,
 # then runs load_only.parity and ten_steps.parity on each file under legacy and modern with the Release CLI,
 # one line per run: what, mode, wall clock, peak resident set size (KiB), exit status.
-# Needs about 24 GiB free for 20M rows: take the BIGRUN lock of the team brief first.
+# Needs about 13 GiB free for 20M rows; run nothing else memory-hungry meanwhile.
 set -euo pipefail
 rows=${1:?rows}
 dir=${2:?dir}
