@@ -198,8 +198,8 @@ internal sealed partial class ScriptRun
             keys.Add(new SortKey(k.Column.Name, k.Descending));
         }
         var perm = Kernel(order, () => Sorting.Permutation(table, keys));
-        if (take is { } n && n < perm.Length) perm = perm.AsSpan(0, (int)Math.Max(0, n)).ToArray();
-        return Derived(table, Kernel(order, () => TableOps.Gather(table, perm, _mode)));
+        var count = take is { } n && n < perm.Length ? (int)Math.Max(0, n) : perm.Length;
+        return Derived(table, Kernel(order, () => TableOps.Gather(table, perm.AsSpan(0, count), _mode)));
     }
 
     /// <summary>Rows [offset, offset+length): a view under <c>alias</c>; under <c>cow</c> O(1) slices of the same buffers.</summary>

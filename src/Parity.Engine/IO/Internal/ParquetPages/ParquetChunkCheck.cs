@@ -11,16 +11,24 @@ namespace Parity.Engine.IO.Internal.ParquetPages;
 /// </summary>
 internal static class ParquetChunkCheck
 {
+    /// <summary>
+    /// Where a chunk's bytes are: from its dictionary page when it has one (some writers leave that offset 0 or
+    /// past the data page, which means none), else from its first data page; null when that lies outside the file.
+    /// </summary>
+    public static (long Start, long Size)? Range(ColumnMetaData meta, long fileLength)
+    {
+        var start = meta.DictionaryPageOffset is > 0 and var d && d < meta.DataPageOffset ? d : meta.DataPageOffset;
+        var size = meta.TotalCompressedSize;
+        return start < 0 || size < 0 || start > fileLength || size > fileLength - start ? null : (start, size);
+    }
+
     /// <summary>Headers are read in windows of this size, doubled while a header runs past the window.</summary>
     private const int Window = 4096;
 
     /// <summary>Null when the chunk's pages look sound; otherwise what is wrong.</summary>
     public static string? Problem(Stream stream, ColumnMetaData meta, long rows)
     {
-        var start = meta.DictionaryPageOffset is > 0 and var d && d < meta.DataPageOffset ? d : meta.DataPageOffset;
-        var size = meta.TotalCompressedSize;
-        if (start < 0 || size < 0 || start > stream.Length || size > stream.Length - start)
-            return "a column chunk lies outside the file";
+        if (Range(meta, stream.Length) is not var (start, size)) return "a column chunk lies outside the file";
         var end = start + size;
         var pos = start;
         long values = 0;

@@ -42,9 +42,7 @@ internal static class ParquetStringChunk
     /// <summary>Reads the chunk's bytes from the file and appends its <paramref name="rows"/> rows to the sink.</summary>
     public static Outcome Read(Stream stream, ColumnMetaData meta, int rows, int maxDef, ParquetUtf8Sink sink)
     {
-        var start = meta.DictionaryPageOffset is > 0 and var d && d < meta.DataPageOffset ? d : meta.DataPageOffset;
-        var size = meta.TotalCompressedSize;
-        if (start < 0 || size < 0 || start > stream.Length || size > stream.Length - start)
+        if (ParquetChunkCheck.Range(meta, stream.Length) is not var (start, size))
             throw new InvalidDataException("a column chunk lies outside the file");
         if (size > System.Array.MaxLength) return Outcome.Unsupported;
         var chunk = ArrayPool<byte>.Shared.Rent((int)size);

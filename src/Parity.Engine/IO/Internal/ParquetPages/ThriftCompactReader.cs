@@ -76,9 +76,7 @@ internal ref struct ThriftCompactReader
                 return;
             case List or Set:
             {
-                var head = ReadByte();
-                var size = head >> 4 == 15 ? Length(ReadVarint()) : head >> 4;
-                var element = (byte)(head & 0x0F);
+                var (size, element) = ReadListHeader();
                 for (var i = 0; i < size; i++)
                 {
                     if (element is BoolTrue or BoolFalse) Advance(1); // list booleans take a byte each
@@ -99,16 +97,8 @@ internal ref struct ThriftCompactReader
                 return;
             }
             case Struct:
-            {
-                short id = 0;
-                while (true)
-                {
-                    var (next, t) = ReadFieldHeader(id);
-                    if (t == Stop) return;
-                    Skip(t, depth + 1);
-                    id = next;
-                }
-            }
+                SkipStruct(string.Empty, NoShape, depth);
+                return;
             default:
                 throw Corrupt("unknown field type " + type);
         }
@@ -133,18 +123,15 @@ internal ref struct ThriftCompactReader
                 Skip(type, depth + 1);
                 continue;
             }
-            var isBool = type is BoolTrue or BoolFalse;
-            if (type != expected.Type && !(isBool && expected.Type == BoolTrue))
-                throw Corrupt($"{name} field {id} has type {type}, not {expected.Type}");
+            if (type != expected.Type) throw Corrupt($"{name} field {id} has type {type}, not {expected.Type}");
             if (type == Struct && expected.Nested is { } nested)
             {
                 SkipStruct(nested, shape, depth + 1);
             }
             else if (type == List && expected.Nested is { } element)
             {
-                var head = ReadByte();
-                var size = head >> 4 == 15 ? Length(ReadVarint()) : head >> 4;
-                if ((head & 0x0F) != Struct) throw Corrupt($"{name} field {id} is a list of type {head & 0x0F}, not of structs");
+                var (size, elementType) = ReadListHeader();
+                if (elementType != Struct) throw Corrupt($"{name} field {id} is a list of type {elementType}, not of structs");
                 for (var i = 0; i < size; i++) SkipStruct(element, shape, depth + 1);
             }
             else
@@ -152,6 +139,16 @@ internal ref struct ThriftCompactReader
                 Skip(type, depth + 1);
             }
         }
+    }
+
+    private static readonly Dictionary<(string Struct, short Field), (byte Type, string? Nested)> NoShape = [];
+
+    /// <summary>A list or set header: the size in the high nibble (15: a varint follows) and the element type.</summary>
+    private (int Size, byte Element) ReadListHeader()
+    {
+        var head = ReadByte();
+        var size = head >> 4 == 15 ? Length(ReadVarint()) : head >> 4;
+        return (size, (byte)(head & 0x0F));
     }
 
     private int Length(long n)
