@@ -324,82 +324,33 @@ internal static class ArrowSourceReader
         if (a.NullCount > 0 && !a.NullBitmapBuffer.IsEmpty && ((a.Offset + n + 7) >> 3) > a.NullBitmapBuffer.Length)
             throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': validity bitmap shorter than the array", 0, col);
         var offsets = a.ValueOffsets;
-        var data = a.ValueBuffer.Span;
-        var first = offsets[0];
-        if (first < 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': negative offset", 1, col);
-        // One branch-free pass: a negative offset or a decrease leaves the sign bit in the OR (the difference of two
-        // non-negative ints cannot overflow); the rare failure is located after.
-        var decrease = NegativeOrDecreasing(offsets);
-        var last = offsets[n];
-        if (decrease < 0 || last > data.Length)
+        if (offsets[0] < 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': negative offset", 1, col);
+        var scan = Utf8ArrayScan.Run(CastMemory<int>.Wrap(offsetBytes.Slice(a.Offset * 4, (n + 1) * 4)), a.ValueBuffer.Memory);
+        if (!scan.OffsetsSound)
         {
+            var dataLength = a.ValueBuffer.Length;
             for (var i = 1; i <= n; i++)
-                if (offsets[i] < offsets[i - 1] || offsets[i] > data.Length)
+                if (offsets[i] < offsets[i - 1] || offsets[i] > dataLength)
                     throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets are not monotonic within the data buffer", i, col);
+            throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, $"column '{name}': offsets point outside the data buffer", 0, col);
         }
-        var bytes = data[first..last];
-        // ASCII is valid UTF-8 and no value can start inside a character: the common case ends here.
-        if (IsAscii(a.ValueBuffer.Memory[first..last])) return;
-        if (!System.Text.Unicode.Utf8.IsValid(bytes))
+        if (!scan.Valid)
         {
             for (var i = 0; i < n; i++)
                 if (!a.IsNull(i) && !System.Text.Unicode.Utf8.IsValid(a.GetBytes(i)))
                     throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8", i + 1, col);
         }
-        // The whole range is valid, but a value starting on a continuation byte would split a character across two
-        // values, which that check alone cannot see.
-        for (var i = 0; i < n; i++)
+        // Invalid bytes only under missing slots pass the search above; a split character is still looked for then.
+        if (scan.SplitCharacter || !scan.Valid)
         {
-            var o = offsets[i];
-            if (offsets[i + 1] > o && (data[o] & 0xC0) == 0x80)
-                throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i + 1, col);
-        }
-    }
-
-    /// <summary>
-    /// The ASCII test over a data buffer: memory-bound, so a large buffer is split across the cores (a mapped
-    /// file's pages are also faulted in on both); the answer does not depend on the split.
-    /// </summary>
-    private static bool IsAscii(ReadOnlyMemory<byte> bytes)
-    {
-        const int ParallelFrom = 16 << 20;
-        if (bytes.Length < ParallelFrom || Environment.ProcessorCount < 2) return System.Text.Ascii.IsValid(bytes.Span);
-        var parts = Environment.ProcessorCount * 2;
-        var size = bytes.Length / parts + 1;
-        var ascii = true;
-        Parallel.For(0, parts, (part, state) =>
-        {
-            var start = Math.Min(bytes.Length, part * size);
-            var piece = bytes.Span.Slice(start, Math.Min(size, bytes.Length - start));
-            if (!System.Text.Ascii.IsValid(piece))
+            var data = a.ValueBuffer.Span;
+            for (var i = 0; i < n; i++)
             {
-                ascii = false;
-                state.Stop();
+                var o = offsets[i];
+                if (offsets[i + 1] > o && (data[o] & 0xC0) == 0x80)
+                    throw LoadThrow.Error(ErrorCodes.Utf8, display, $"column '{name}' holds invalid UTF-8 (a value starts inside a character)", i + 1, col);
             }
-        });
-        return ascii;
-    }
-
-    /// <summary>
-    /// The OR over every offset and its difference from the one before: negative when any offset is negative or
-    /// smaller than its predecessor. Vectorised, one pass over the offsets at memory speed.
-    /// </summary>
-    private static int NegativeOrDecreasing(ReadOnlySpan<int> offsets)
-    {
-        ref var start = ref System.Runtime.InteropServices.MemoryMarshal.GetReference(offsets);
-        var acc = System.Numerics.Vector<int>.Zero;
-        var i = 1;
-        var width = System.Numerics.Vector<int>.Count;
-        for (; i + width <= offsets.Length; i += width)
-        {
-            var current = System.Numerics.Vector.LoadUnsafe(ref start, (nuint)i);
-            var previous = System.Numerics.Vector.LoadUnsafe(ref start, (nuint)(i - 1));
-            acc |= current | (current - previous);
         }
-        var result = 0;
-        for (var lane = 0; lane < width; lane++) result |= acc[lane];
-        for (; i < offsets.Length; i++) result |= offsets[i] | (offsets[i] - offsets[i - 1]);
-        return result;
     }
 
     private static StringArray DecodeText(IArrowArray array, string name, string display, int col)
