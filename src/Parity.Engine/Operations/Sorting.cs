@@ -33,8 +33,38 @@ public static class Sorting
             var only = table.IndexOf(keys[0].Column);
             if (only >= 0 && TrySingleNumeric(table.Columns[only], keys[0].Descending, out var direct)) return direct;
         }
+        var acc = CombinedKeys(table, keys, out var card);
+        return CountingSort(acc, card);
+    }
+
+    /// <summary>
+    /// The first <paramref name="limit"/> entries of <see cref="Permutation(Table, IReadOnlyList{SortKey})"/>: the
+    /// same rows in the same order (<c>order by … take N</c>). A limit below a quarter of the rows keeps the
+    /// smallest rows in a bounded heap as each row passes once, instead of sorting them all.
+    /// </summary>
+    public static int[] Permutation(Table table, IReadOnlyList<SortKey> keys, int limit)
+    {
+        var n = table.RowCount;
+        limit = Math.Clamp(limit, 0, n);
+        if (keys.Count == 0) return ColumnRanker.Iota(limit);
+        if (limit >= n / 4) return limit == n ? Permutation(table, keys) : Permutation(table, keys).AsSpan(0, limit).ToArray();
+        if (keys.Count == 1)
+        {
+            var only = table.IndexOf(keys[0].Column);
+            if (only >= 0 && TrySingleNumericTop(table.Columns[only], keys[0].Descending, limit, out var direct)) return direct;
+        }
+        var acc = CombinedKeys(table, keys, out _);
+        var top = new TopRows(limit);
+        for (var i = 0; i < acc.Length; i++) top.Offer(0, (ulong)acc[i], i);
+        return top.SortedRows();
+    }
+
+    /// <summary>One non-negative key per row that orders rows as the sort keys do (ties left to input order); <paramref name="card"/> bounds it.</summary>
+    private static long[] CombinedKeys(Table table, IReadOnlyList<SortKey> keys, out int card)
+    {
+        var n = table.RowCount;
         var acc = new long[n];
-        long card = 1;
+        long combined = 1;
         var sortRanks = new int[n];
         for (var k = 0; k < keys.Count; k++)
         {
@@ -42,10 +72,11 @@ public static class Sorting
             if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{keys[k].Column}'");
             var ranks = ColumnRanker.Rank(table.Columns[index]);
             SortRanks(ranks, keys[k].Descending, sortRanks);
-            KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
+            KeyCombiner.Append(acc, ref combined, sortRanks, ranks.ValueCount + 1);
         }
-        if (card > Math.Min((long)n * 2 + 1024, Array.MaxLength - 1)) card = KeyCombiner.Densify(acc, card);
-        return CountingSort(acc, (int)card);
+        if (combined > Math.Min((long)n * 2 + 1024, Array.MaxLength - 1)) combined = KeyCombiner.Densify(acc, combined);
+        card = (int)combined;
+        return acc;
     }
 
     /// <summary>Ranks as sort positions: values (reversed when descending), then the NaN value, then missing.</summary>
@@ -120,6 +151,54 @@ public static class Sorting
         var at = m + nanCount;
         for (var k = 0; k < missingCount; k++) perm[at + k] = tail[n - 1 - k];
         ReturnScratch(n, ownKeys, ownRows, ownTail);
+        return true;
+    }
+
+    /// <summary>
+    /// One numeric key, first <paramref name="limit"/> rows only: the same order as <see cref="TrySingleNumeric"/>
+    /// (values by their order-preserving keys, complemented when descending, then NaN values, then missing).
+    /// </summary>
+    private static bool TrySingleNumericTop(Column column, bool descending, int limit, out int[] top)
+    {
+        const int Value = 0, NaNValue = 1, Missing = 2;
+        var n = column.Length;
+        var flip = descending ? ulong.MaxValue : 0UL;
+        var heap = new TopRows(limit);
+        switch (column)
+        {
+            case Int64Column or TimestampColumn:
+            {
+                var p = (PrimitiveColumn<long>)column;
+                var span = p.Span;
+                var bits = p.Validity.Bits.Span;
+                var off = p.Validity.BitOffset;
+                for (var i = 0; i < n; i++)
+                {
+                    if (ValidBits.IsValid(bits, off, i)) heap.Offer(Value, RadixRanks.OfLong(span[i]) ^ flip, i);
+                    else heap.Offer(Missing, 0, i);
+                }
+                break;
+            }
+            case Float64Column f:
+            {
+                var span = f.Span;
+                var bits = f.Validity.Bits.Span;
+                var off = f.Validity.BitOffset;
+                var nanIsMissing = f.Marker == MissingMarker.Nan;
+                for (var i = 0; i < n; i++)
+                {
+                    var d = span[i];
+                    if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) heap.Offer(Missing, 0, i);
+                    else if (double.IsNaN(d)) heap.Offer(NaNValue, 0, i);
+                    else heap.Offer(Value, RadixRanks.OfDouble(d) ^ flip, i);
+                }
+                break;
+            }
+            default:
+                top = [];
+                return false;
+        }
+        top = heap.SortedRows();
         return true;
     }
 

@@ -186,7 +186,7 @@ internal sealed partial class ScriptRun
 
     /// <summary>
     /// <c>order by</c>, and with <paramref name="take"/> the <c>take N</c> after it: the same stable permutation
-    /// either way, so the rows are exactly those of a full sort followed by <c>take</c>; only the first N are
+    /// either way, so the rows are exactly those of a full sort followed by <c>take</c>; only the first N are found and
     /// gathered.
     /// </summary>
     private Frame OrderBy(OrderByClause order, Table table, string name, long? take)
@@ -197,9 +197,10 @@ internal sealed partial class ScriptRun
             RequireColumn(k.Column, table, name);
             keys.Add(new SortKey(k.Column.Name, k.Descending));
         }
-        var perm = Kernel(order, () => Sorting.Permutation(table, keys));
-        var count = take is { } n && n < perm.Length ? (int)Math.Max(0, n) : perm.Length;
-        return Derived(table, Kernel(order, () => TableOps.Gather(table, perm.AsSpan(0, count), _mode)));
+        var perm = Kernel(order, () => take is { } n
+            ? Sorting.Permutation(table, keys, (int)Math.Clamp(n, 0, table.RowCount))
+            : Sorting.Permutation(table, keys));
+        return Derived(table, Kernel(order, () => TableOps.Gather(table, perm, _mode)));
     }
 
     /// <summary>Rows [offset, offset+length): a view under <c>alias</c>; under <c>cow</c> O(1) slices of the same buffers.</summary>
