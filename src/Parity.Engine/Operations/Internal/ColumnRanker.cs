@@ -201,8 +201,7 @@ internal static class ColumnRanker
             if (anyNull && array.IsNull(i)) { ranks[i] = -1; continue; }
             ranks[i] = map.GetOrAdd(data[offsets[i]..offsets[i + 1]]);
         }
-        var ids = Iota(map.Count);
-        ids.AsSpan().Sort(new ArenaComparer(map.Arena, map.Offsets));
+        var ids = SortedIds(map);
         RemapIds(ranks, ids);
         return new KeyRanks(ranks, ids.Length, false);
     }
@@ -317,6 +316,38 @@ internal static class ColumnRanker
             var r = ranks[i];
             if (r >= 0) ranks[i] = rankOf[r];
         }
+    }
+
+    /// <summary>
+    /// The map's ids in byte order of their keys (byte order is code point order for UTF-8): first by a big-endian
+    /// 8-byte prefix, zero-padded (integers, cheap to sort and to compare), then each run that shares a prefix by
+    /// the full comparison. A smaller padded prefix always means a smaller key, so only the runs need the bytes.
+    /// </summary>
+    private static int[] SortedIds(Utf8IdMap map)
+    {
+        var count = map.Count;
+        var arena = map.Arena;
+        var offsets = map.Offsets;
+        var prefixes = new ulong[count];
+        for (var id = 0; id < count; id++)
+        {
+            var key = arena.AsSpan(offsets[id], offsets[id + 1] - offsets[id]);
+            var take = Math.Min(8, key.Length);
+            ulong p = 0;
+            for (var j = 0; j < take; j++) p |= (ulong)key[j] << (56 - 8 * j);
+            prefixes[id] = p;
+        }
+        var ids = Iota(count);
+        Array.Sort(prefixes, ids);
+        var comparer = new ArenaComparer(arena, offsets);
+        for (var start = 0; start < count;)
+        {
+            var end = start + 1;
+            while (end < count && prefixes[end] == prefixes[start]) end++;
+            if (end - start > 1) ids.AsSpan(start, end - start).Sort(comparer);
+            start = end;
+        }
+        return ids;
     }
 
     /// <summary>Orders arena ids by their UTF-8 bytes: byte order is code point order (Unicode Standard §2.5, UTF-8).</summary>
