@@ -192,15 +192,7 @@ internal static class ColumnRanker
         var n = column.Length;
         var ranks = new int[n];
         var map = new Utf8IdMap();
-        var offsets = column.Offsets;
-        var data = column.Data;
-        var array = column.Array;
-        var anyNull = array.NullCount > 0;
-        for (var i = 0; i < n; i++)
-        {
-            if (anyNull && array.IsNull(i)) { ranks[i] = -1; continue; }
-            ranks[i] = map.GetOrAdd(data[offsets[i]..offsets[i + 1]]);
-        }
+        map.Code(column, ranks, insert: true, missingCode: -1);
         var ids = SortedIds(map);
         RemapIds(ranks, ids);
         return new KeyRanks(ranks, ids.Length, false);

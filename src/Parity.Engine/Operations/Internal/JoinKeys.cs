@@ -19,8 +19,8 @@ internal static class JoinKeys
         if (left is Utf8Column lu && right is Utf8Column ru)
         {
             var map = new Utf8IdMap();
-            CodeUtf8(ru, rightCodes, map, insert: true);
-            CodeUtf8(lu, leftCodes, map, insert: false);
+            map.Code(ru, rightCodes, insert: true, missingCode: -2);
+            map.Code(lu, leftCodes, insert: false, missingCode: -2);
             distinct = map.Count;
         }
         else if (LongKind(left) is var lk && LongKind(right) is var rk && lk != 0 && rk != 0 && (lk == rk || (lk <= 2 && rk <= 2)))
@@ -60,20 +60,6 @@ internal static class JoinKeys
         TimestampColumn => 4,
         _ => 0,
     };
-
-    private static void CodeUtf8(Utf8Column column, int[] codes, Utf8IdMap map, bool insert)
-    {
-        var offsets = column.Offsets;
-        var data = column.Data;
-        var array = column.Array;
-        var anyNull = array.NullCount > 0;
-        for (var i = 0; i < codes.Length; i++)
-        {
-            if (anyNull && array.IsNull(i)) { codes[i] = -2; continue; }
-            var bytes = data[offsets[i]..offsets[i + 1]];
-            codes[i] = insert ? map.GetOrAdd(bytes) : map.Find(bytes);
-        }
-    }
 
     private static void CodeLongs(Column column, bool asDouble, int[] codes, LongIdMap map, bool insert)
     {
