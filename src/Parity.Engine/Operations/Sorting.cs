@@ -1,4 +1,5 @@
 using System.Buffers;
+using System.Runtime.CompilerServices;
 using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
@@ -98,51 +99,12 @@ public static class Sorting
     /// </summary>
     private static bool TrySingleNumeric(Column column, bool descending, out int[] perm)
     {
+        perm = [];
+        if (!IsNumeric(column)) return false;
         var n = column.Length;
-        var flip = descending ? ulong.MaxValue : 0UL;
-        int m = 0, nanCount = 0, missingCount = 0;
-        ulong[] keys;
-        int[] rows;
-        int[] tail; // NaN values from the front, missing rows from the back
-        switch (column)
-        {
-            case Int64Column or TimestampColumn:
-            {
-                var p = (PrimitiveColumn<long>)column;
-                var span = p.Span;
-                var bits = p.Validity.Bits.Span;
-                var off = p.Validity.BitOffset;
-                RentScratch(n, out keys, out rows, out tail);
-                for (var i = 0; i < n; i++)
-                {
-                    if (!ValidBits.IsValid(bits, off, i)) { tail[n - 1 - missingCount++] = i; continue; }
-                    keys[m] = RadixRanks.OfLong(span[i]) ^ flip;
-                    rows[m++] = i;
-                }
-                break;
-            }
-            case Float64Column f:
-            {
-                var span = f.Span;
-                var bits = f.Validity.Bits.Span;
-                var off = f.Validity.BitOffset;
-                var nanIsMissing = f.Marker == MissingMarker.Nan;
-                RentScratch(n, out keys, out rows, out tail);
-                for (var i = 0; i < n; i++)
-                {
-                    var d = span[i];
-                    if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) { tail[n - 1 - missingCount++] = i; continue; }
-                    if (double.IsNaN(d)) { tail[nanCount++] = i; continue; }
-                    keys[m] = RadixRanks.OfDouble(d) ^ flip;
-                    rows[m++] = i;
-                }
-                break;
-            }
-            default:
-                perm = [];
-                return false;
-        }
-        var (ownKeys, ownRows, ownTail) = (keys, rows, tail);
+        var scratch = new ScratchRows(n);
+        Classify(column, descending, ref scratch);
+        var (keys, rows, tail, m, nanCount, missingCount) = (scratch.Keys, scratch.Rows, scratch.Tail, scratch.Count, scratch.NaNCount, scratch.MissingCount);
         RadixRanks.SortLarge(ref keys, ref rows, m);
         perm = new int[n];
         rows.AsSpan(0, m).CopyTo(perm);
@@ -150,56 +112,112 @@ public static class Sorting
         // Missing rows were written backwards from the end of tail; restore input order.
         var at = m + nanCount;
         for (var k = 0; k < missingCount; k++) perm[at + k] = tail[n - 1 - k];
-        ReturnScratch(n, ownKeys, ownRows, ownTail);
+        ReturnScratch(n, scratch.Keys, scratch.Rows, scratch.Tail);
         return true;
     }
 
-    /// <summary>
-    /// One numeric key, first <paramref name="limit"/> rows only: the same order as <see cref="TrySingleNumeric"/>
-    /// (values by their order-preserving keys, complemented when descending, then NaN values, then missing).
-    /// </summary>
+    /// <summary>One numeric key, first <paramref name="limit"/> rows only: the same order as <see cref="TrySingleNumeric"/>.</summary>
     private static bool TrySingleNumericTop(Column column, bool descending, int limit, out int[] top)
     {
-        const int Value = 0, NaNValue = 1, Missing = 2;
+        top = [];
+        if (!IsNumeric(column)) return false;
+        var heap = new HeapRows(new TopRows(limit));
+        Classify(column, descending, ref heap);
+        top = heap.Top.SortedRows();
+        return true;
+    }
+
+    private static bool IsNumeric(Column column) => column is Int64Column or TimestampColumn or Float64Column;
+
+    /// <summary>
+    /// Sends every row of a numeric column to <paramref name="sink"/> in input order: a value with its
+    /// order-preserving key (complemented when descending), a NaN that is a value, or a missing cell.
+    /// </summary>
+    private static void Classify<TSink>(Column column, bool descending, ref TSink sink)
+        where TSink : struct, INumericRows
+    {
         var n = column.Length;
         var flip = descending ? ulong.MaxValue : 0UL;
-        var heap = new TopRows(limit);
-        switch (column)
+        if (column is Float64Column f)
         {
-            case Int64Column or TimestampColumn:
+            var span = f.Span;
+            var bits = f.Validity.Bits.Span;
+            var off = f.Validity.BitOffset;
+            var nanIsMissing = f.Marker == MissingMarker.Nan;
+            for (var i = 0; i < n; i++)
             {
-                var p = (PrimitiveColumn<long>)column;
-                var span = p.Span;
-                var bits = p.Validity.Bits.Span;
-                var off = p.Validity.BitOffset;
-                for (var i = 0; i < n; i++)
-                {
-                    if (ValidBits.IsValid(bits, off, i)) heap.Offer(Value, RadixRanks.OfLong(span[i]) ^ flip, i);
-                    else heap.Offer(Missing, 0, i);
-                }
-                break;
+                var d = span[i];
+                if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) sink.Missing(i);
+                else if (double.IsNaN(d)) sink.NaNValue(i);
+                else sink.Value(RadixRanks.OfDouble(d) ^ flip, i);
             }
-            case Float64Column f:
-            {
-                var span = f.Span;
-                var bits = f.Validity.Bits.Span;
-                var off = f.Validity.BitOffset;
-                var nanIsMissing = f.Marker == MissingMarker.Nan;
-                for (var i = 0; i < n; i++)
-                {
-                    var d = span[i];
-                    if (!ValidBits.IsValid(bits, off, i) || (nanIsMissing && double.IsNaN(d))) heap.Offer(Missing, 0, i);
-                    else if (double.IsNaN(d)) heap.Offer(NaNValue, 0, i);
-                    else heap.Offer(Value, RadixRanks.OfDouble(d) ^ flip, i);
-                }
-                break;
-            }
-            default:
-                top = [];
-                return false;
+            return;
         }
-        top = heap.SortedRows();
-        return true;
+        var p = (PrimitiveColumn<long>)column;
+        var longs = p.Span;
+        var valid = p.Validity.Bits.Span;
+        var offset = p.Validity.BitOffset;
+        for (var i = 0; i < n; i++)
+        {
+            if (ValidBits.IsValid(valid, offset, i)) sink.Value(RadixRanks.OfLong(longs[i]) ^ flip, i);
+            else sink.Missing(i);
+        }
+    }
+
+    /// <summary>Where <see cref="Classify"/> sends each row (a struct, so the loop is specialised per sink).</summary>
+    private interface INumericRows
+    {
+        void Value(ulong key, int row);
+
+        void NaNValue(int row);
+
+        void Missing(int row);
+    }
+
+    /// <summary>Values into (key, row) scratch arrays for the radix sort; NaN values from the front of the tail, missing rows from its back.</summary>
+    private struct ScratchRows : INumericRows
+    {
+        public ulong[] Keys;
+        public int[] Rows;
+        public int[] Tail;
+        public int Count;
+        public int NaNCount;
+        public int MissingCount;
+        private readonly int _n;
+
+        public ScratchRows(int n)
+        {
+            _n = n;
+            RentScratch(n, out Keys, out Rows, out Tail);
+        }
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void Value(ulong key, int row)
+        {
+            Keys[Count] = key;
+            Rows[Count++] = row;
+        }
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void NaNValue(int row) => Tail[NaNCount++] = row;
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void Missing(int row) => Tail[_n - 1 - MissingCount++] = row;
+    }
+
+    /// <summary>Every row offered to a bounded heap in its class: values, then NaN values, then missing.</summary>
+    private readonly struct HeapRows(TopRows top) : INumericRows
+    {
+        public TopRows Top { get; } = top;
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void Value(ulong key, int row) => Top.Offer(0, key, row);
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void NaNValue(int row) => Top.Offer(1, 0, row);
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public void Missing(int row) => Top.Offer(2, 0, row);
     }
 
     /// <summary>Large scratch arrays come from the shared pool: fresh large arrays are slow to touch and wake the full GC.</summary>
