@@ -10,42 +10,58 @@ namespace Parity.Harness.Inspection;
 /// (the loader parses once and converts per mode; the writes axis never changes a type), takes type labels
 /// from each mode, missing counts from <c>modern</c> (the null marker: a NaN read from a file is a value
 /// there, not a missing cell), and bytes from <see cref="ColumnMemory"/> under <c>legacy</c> (boxed) and
-/// <c>modern</c> (Arrow).
+/// <c>modern</c> (Arrow). One converted table is alive at a time, so a large file costs the memory of one load
+/// (plus the parse the loader keeps), not of four.
 /// </summary>
 public static class DataInspector
 {
     public static DataInspection Inspect(string path, LoadOptions options)
     {
-        var tables = new Dictionary<(StringStorage, MissingMarker), Table>();
-        Table TableFor(Mode m)
+        var labels = new Dictionary<(StringStorage, MissingMarker), string[]>();
+        string[] names = [];
+        var rows = 0;
+        long[] boxedBytes = [], arrowBytes = [];
+        int[] missing = [];
+        foreach (var mode in (Mode[])[Mode.Legacy, Mode.Modern, .. Mode.All])
         {
-            var key = (m.Strings, m.Missing);
-            if (!tables.TryGetValue(key, out var t))
+            var key = (mode.Strings, mode.Missing);
+            if (labels.ContainsKey(key)) continue;
+            var table = DataLoader.Load(path, options, mode);
+            var types = new string[table.ColumnCount];
+            for (var c = 0; c < types.Length; c++) types[c] = table.Columns[c].TypeLabel;
+            labels[key] = types;
+            if (mode == Mode.Legacy)
             {
-                t = DataLoader.Load(path, options, m);
-                tables[key] = t;
+                names = [.. table.Names];
+                rows = table.RowCount;
+                boxedBytes = BytesOf(table);
             }
-            return t;
+            else if (mode == Mode.Modern)
+            {
+                arrowBytes = BytesOf(table);
+                missing = new int[table.ColumnCount];
+                for (var c = 0; c < missing.Length; c++) missing[c] = table.Columns[c].MissingCount;
+            }
         }
-        var legacy = TableFor(Mode.Legacy);
-        var modern = TableFor(Mode.Modern);
-        var columns = new List<ColumnInspection>(legacy.ColumnCount);
-        for (var c = 0; c < legacy.ColumnCount; c++)
+        var columns = new List<ColumnInspection>(names.Length);
+        for (var c = 0; c < names.Length; c++)
         {
             var types = new List<KeyValuePair<string, string>>(2 + Mode.All.Count)
             {
-                new("legacy", legacy.Columns[c].TypeLabel),
-                new("modern", modern.Columns[c].TypeLabel),
+                new("legacy", labels[(Mode.Legacy.Strings, Mode.Legacy.Missing)][c]),
+                new("modern", labels[(Mode.Modern.Strings, Mode.Modern.Missing)][c]),
             };
             foreach (var m in Mode.All)
-                types.Add(new(m.Spelling, TableFor(m).Columns[c].TypeLabel));
-            columns.Add(new ColumnInspection(
-                legacy.Names[c],
-                types,
-                modern.Columns[c].MissingCount,
-                ColumnMemory.Bytes(legacy.Columns[c]),
-                ColumnMemory.Bytes(modern.Columns[c])));
+                types.Add(new(m.Spelling, labels[(m.Strings, m.Missing)][c]));
+            columns.Add(new ColumnInspection(names[c], types, missing[c], boxedBytes[c], arrowBytes[c]));
         }
-        return new DataInspection(options.DisplayPath ?? path, legacy.RowCount, columns);
+        return new DataInspection(options.DisplayPath ?? path, rows, columns);
+    }
+
+    private static long[] BytesOf(Table table)
+    {
+        var bytes = new long[table.ColumnCount];
+        for (var c = 0; c < bytes.Length; c++) bytes[c] = ColumnMemory.Bytes(table.Columns[c]);
+        return bytes;
     }
 }
