@@ -84,7 +84,7 @@ public sealed class Utf8ColumnBuilder
     {
         var length = offsets.Length - 1;
         if (nullCount < 0) nullCount = validity.NullCount;
-        var offsetBytes = System.Runtime.InteropServices.MemoryMarshal.AsBytes(offsets.Span).ToArray();
+        var offsetBytes = Int32ByteMemory.Of(offsets);
         var bitmap = ArrowBuffer.Empty;
         var bitOffset = 0;
         if (nullCount > 0)

@@ -127,7 +127,7 @@ internal static class Utf8ArrayScan
     /// The OR over every offset and its difference from the one before: negative when any offset is negative or
     /// smaller than its predecessor (the difference of two non-negative ints cannot overflow). Vectorised.
     /// </summary>
-    internal static int NegativeOrDecreasing(ReadOnlySpan<int> offsets)
+    private static int NegativeOrDecreasing(ReadOnlySpan<int> offsets)
     {
         ref var start = ref MemoryMarshal.GetReference(offsets);
         var acc = Vector<int>.Zero;
