@@ -35,7 +35,9 @@ public static class Sorting
             if (only >= 0 && TrySingleNumeric(table.Columns[only], keys[0].Descending, out var direct)) return direct;
         }
         var acc = CombinedKeys(table, keys, out var card);
-        return CountingSort(acc, card);
+        // A counting sort needs keys dense enough to count; the heap of the limited form does not.
+        if (card > Math.Min((long)table.RowCount * 2 + 1024, Array.MaxLength - 1)) card = KeyCombiner.Densify(acc, card);
+        return CountingSort(acc, (int)card);
     }
 
     /// <summary>
@@ -61,11 +63,11 @@ public static class Sorting
     }
 
     /// <summary>One non-negative key per row that orders rows as the sort keys do (ties left to input order); <paramref name="card"/> bounds it.</summary>
-    private static long[] CombinedKeys(Table table, IReadOnlyList<SortKey> keys, out int card)
+    private static long[] CombinedKeys(Table table, IReadOnlyList<SortKey> keys, out long card)
     {
         var n = table.RowCount;
         var acc = new long[n];
-        long combined = 1;
+        card = 1;
         var sortRanks = new int[n];
         for (var k = 0; k < keys.Count; k++)
         {
@@ -73,10 +75,8 @@ public static class Sorting
             if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{keys[k].Column}'");
             var ranks = ColumnRanker.Rank(table.Columns[index]);
             SortRanks(ranks, keys[k].Descending, sortRanks);
-            KeyCombiner.Append(acc, ref combined, sortRanks, ranks.ValueCount + 1);
+            KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
         }
-        if (combined > Math.Min((long)n * 2 + 1024, Array.MaxLength - 1)) combined = KeyCombiner.Densify(acc, combined);
-        card = (int)combined;
         return acc;
     }
 
