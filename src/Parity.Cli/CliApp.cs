@@ -1,7 +1,6 @@
 using System.CommandLine;
 using Parity.Cli.Commands;
-using Parity.Engine.Errors;
-using Parity.Script.Diagnostics;
+using Parity.Harness.Gate;
 
 namespace Parity.Cli;
 
@@ -22,7 +21,7 @@ public static class CliApp
         if (parsed.Errors.Count > 0)
         {
             foreach (var error in parsed.Errors)
-                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": " + error.Message);
+                context.Error.WriteLine(GateMessages.Usage(error.Message));
             return ExitCodes.BadInput;
         }
         try
@@ -34,19 +33,14 @@ public static class CliApp
                 EnableDefaultExceptionHandler = false,
             });
         }
-        catch (EngineException ex)
+        catch (Exception ex) when (GateMessages.TryFormat(ex, out var message))
         {
-            context.Error.WriteLine(ex.Format());
-            return ExitCodes.BadInput;
-        }
-        catch (ScriptException ex)
-        {
-            context.Error.WriteLine(ex.Diagnostic.Format());
+            context.Error.WriteLine(message);
             return ExitCodes.BadInput;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            context.Error.WriteLine("parity: error " + ErrorCodes.FileRead + ": " + ex.Message);
+            context.Error.WriteLine(GateMessages.FileRead(ex.Message));
             return ExitCodes.BadInput;
         }
     }

@@ -1,9 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
-using Parity.Harness.Diffing;
 using Parity.Harness.Formatting;
-using Parity.Harness.Golden;
-using Parity.Harness.Running;
+using Parity.Harness.Gate;
 
 namespace Parity.Cli.Commands;
 
@@ -12,54 +10,41 @@ public static class AcceptCommand
 {
     public static Command Create(CliContext context)
     {
-        var scripts = GateCommandCore.Scripts();
-        var golden = GateCommandCore.Golden();
+        var scripts = GateCommandOptions.Scripts();
+        var golden = GateCommandOptions.Golden();
         var checkpoint = new Option<string>("--checkpoint") { Description = "Refresh only this checkpoint (its frames in every mode and its findings)." };
-        var modes = GateCommandCore.Modes();
-        var tolerance = GateCommandCore.FloatTolerance();
-        var rowLimit = GateCommandCore.RowLimit();
+        var modes = GateCommandOptions.Modes();
+        var tolerance = GateCommandOptions.FloatTolerance();
+        var rowLimit = GateCommandOptions.RowLimit();
         var limits = new RunLimitOptions();
         var command = new Command("accept", "Write or refresh the golden snapshots and accept the current cross-mode findings.")
         {
             scripts, golden, checkpoint, modes, tolerance, rowLimit,
         };
         limits.AddTo(command);
-        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput : Execute(context, runOptions, p.GetValue(scripts) ?? [], p.GetValue(golden), p.GetValue(checkpoint), p.GetValue(modes), p.GetValue(tolerance), p.GetValue(rowLimit)));
+        command.SetAction(p =>
+        {
+            if (!limits.TryGet(p, context, out var options)) return ExitCodes.BadInput;
+            options = GateCommandOptions.WithGolden(options, p.GetValue(golden));
+            if (!GateCommandOptions.TryModes(context, p.GetValue(modes), ref options)
+                || !GateCommandOptions.TryTolerance(context, p.GetValue(tolerance), ref options)
+                || !GateCommandOptions.TryRowLimit(context, p.GetValue(rowLimit), ref options))
+                return ExitCodes.BadInput;
+            var result = new GateSession(options).Accept(p.GetValue(scripts) ?? [], p.GetValue(checkpoint));
+            GateCommandOptions.WriteProblems(context, result.Problems);
+            foreach (var s in result.Scripts)
+                context.Out.WriteLine(Line(s));
+            return result.HasBadInput ? ExitCodes.BadInput : ExitCodes.Passed;
+        });
         return command;
     }
 
-    private static int Execute(CliContext context, Script.Running.RunOptions runOptions, string[] scripts, string? golden, string? checkpoint, string? modesText, string? toleranceText, int? rowLimitValue)
-    {
-        if (!GateCommandCore.TryModes(context, modesText, out var modes)
-            || !GateCommandCore.TryTolerance(context, toleranceText, out var tolerance)
-            || !GateCommandCore.TryRowLimit(context, rowLimitValue, out var rowLimit))
-            return ExitCodes.BadInput;
-        var errors = new List<string>();
-        var files = ScriptFiles.Resolve(scripts, context.WorkingDirectory, errors);
-        foreach (var e in errors) context.Error.WriteLine(e);
-        var badInput = errors.Count > 0;
-        var store = GateCommandCore.Store(context, golden, rowLimit);
-        var diff = DiffOptions.Default with { FloatTolerance = tolerance };
-        foreach (var file in files)
-        {
-            var outcome = GateRunner.RunScript(file, context.WorkingDirectory, modes, runOptions);
-            if (outcome.IsBadInput)
-            {
-                foreach (var m in outcome.BadInputMessages) context.Error.WriteLine(m);
-                badInput = true;
-                continue;
-            }
-            var findings = ModeDiffer.CompareAll(outcome.Runs, outcome.Script, diff);
-            store.Accept(outcome.Script, outcome.Runs, findings, checkpoint);
-            var checkpoints = 0;
-            foreach (var r in outcome.Runs) checkpoints = Math.Max(checkpoints, r.Checkpoints.Count);
-            context.Out.WriteLine("accepted " + CellText.Safe(outcome.Script)
-                + (checkpoint is null ? "" : " checkpoint " + CellText.Quote(checkpoint))
-                + ": " + Count(checkpoints, "checkpoint") + " in " + Count(outcome.Runs.Count, "mode") + ", " + Count(findings.Count, "finding")
-                + " -> " + store.DisplayRoot + "/" + GoldenNames.ScriptFolder(outcome.Script));
-        }
-        return badInput ? ExitCodes.BadInput : ExitCodes.Passed;
-    }
+    /// <summary><c>accepted SCRIPT: N checkpoints in M modes, K findings -> golden/FOLDER</c>.</summary>
+    internal static string Line(AcceptedScript s) =>
+        "accepted " + CellText.Safe(s.Script)
+        + (s.Checkpoint is null ? "" : " checkpoint " + CellText.Quote(s.Checkpoint))
+        + ": " + Count(s.Checkpoints, "checkpoint") + " in " + Count(s.Modes, "mode") + ", " + Count(s.Findings, "finding")
+        + " -> " + s.Folder;
 
     private static string Count(int n, string noun) => n.ToString(CultureInfo.InvariantCulture) + " " + noun + (n == 1 ? "" : "s");
 }

@@ -1,6 +1,6 @@
 using System.CommandLine;
-using Parity.Engine.Errors;
 using Parity.Harness.Fixtures;
+using Parity.Harness.Gate;
 
 namespace Parity.Cli.Commands;
 
@@ -25,7 +25,10 @@ public static class FixturesCommand
         {
             var n = parse.GetValue(rows);
             if (n < 1)
-                throw new EngineException(ErrorCodes.Usage, "--rows must be at least 1");
+            {
+                context.Error.WriteLine(GateMessages.Usage("--rows must be at least 1"));
+                return ExitCodes.BadInput;
+            }
             var dir = Path.Combine(context.WorkingDirectory, parse.GetValue(output)!);
             var written = new HarborLineGenerator(parse.GetValue(seed)).Write(dir, n);
             foreach (var path in written)

@@ -1,6 +1,5 @@
 using System.CommandLine;
-using Parity.Engine.Errors;
-using Parity.Engine.IO;
+using Parity.Harness.Gate;
 using Parity.Harness.Inspection;
 
 namespace Parity.Cli.Commands;
@@ -28,15 +27,18 @@ public static class InspectCommand
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
-            var options = LoadOptions.Default with { DisplayPath = path };
+            char? separator = null;
             if (parse.GetValue(delimiter) is { } d)
             {
-                if (d.Length != 1) throw new EngineException(ErrorCodes.Usage, "--delimiter must be one character, e.g. --delimiter ';'");
-                options = options with { Delimiter = d[0] };
+                if (d.Length != 1)
+                {
+                    context.Error.WriteLine(GateMessages.Usage("--delimiter must be one character, e.g. --delimiter ';'"));
+                    return ExitCodes.BadInput;
+                }
+                separator = d[0];
             }
-            if (parse.GetValue(missing) is { Length: > 0 } tokens) options = options with { MissingTokens = tokens };
             var full = Path.Combine(context.WorkingDirectory, path);
-            var inspection = DataInspector.Inspect(full, options);
+            var inspection = DataInspector.Inspect(full, path, separator, parse.GetValue(missing));
             if (parse.GetValue(json)) InspectionJsonWriter.Write(inspection, context.Out);
             else InspectionTextWriter.Write(inspection, context.Out);
             return ExitCodes.Passed;

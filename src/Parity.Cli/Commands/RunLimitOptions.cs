@@ -1,7 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
-using Parity.Engine.Errors;
-using Parity.Script.Running;
+using Parity.Harness.Formatting;
+using Parity.Harness.Gate;
 
 namespace Parity.Cli.Commands;
 
@@ -11,16 +11,18 @@ namespace Parity.Cli.Commands;
 /// </summary>
 internal sealed class RunLimitOptions
 {
+    private static readonly GateOptions Defaults = new() { WorkingDirectory = "." };
+
     private readonly Option<long?> _maxRows = new("--max-rows")
     {
         Description = "Most rows a join or append may produce before the run stops with E-LIMIT (default "
-            + RunOptions.Default.MaxRows.ToString(CultureInfo.InvariantCulture) + ").",
+            + Defaults.MaxRows.ToString(CultureInfo.InvariantCulture) + ").",
     };
 
     private readonly Option<long?> _maxStringBytes = new("--max-string-bytes")
     {
         Description = "Most UTF-8 bytes one computed string may have before the run stops with E-LIMIT (default "
-            + RunOptions.Default.MaxStringBytes.ToString(CultureInfo.InvariantCulture) + ").",
+            + Defaults.MaxStringBytes.ToString(CultureInfo.InvariantCulture) + ").",
     };
 
     private readonly Option<string> _root = new("--root")
@@ -41,15 +43,18 @@ internal sealed class RunLimitOptions
         command.Options.Add(_allowOutsideRoot);
     }
 
-    /// <summary>The run options the command line asks for, or false after a usage message on stderr.</summary>
-    public bool TryGet(ParseResult parse, CliContext context, out RunOptions options)
+    /// <summary>
+    /// Gate options for the working directory with the limits the command line asks for, or false after a
+    /// usage message on stderr.
+    /// </summary>
+    public bool TryGet(ParseResult parse, CliContext context, out GateOptions options)
     {
-        options = RunOptions.Default;
+        options = new GateOptions { WorkingDirectory = context.WorkingDirectory };
         var maxRows = parse.GetValue(_maxRows);
         var maxBytes = parse.GetValue(_maxStringBytes);
         if (maxRows is < 1 || maxBytes is < 1)
         {
-            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": " + (maxRows is < 1 ? "--max-rows" : "--max-string-bytes") + " must be 1 or more");
+            context.Error.WriteLine(GateMessages.Usage((maxRows is < 1 ? "--max-rows" : "--max-string-bytes") + " must be 1 or more"));
             return false;
         }
         var root = parse.GetValue(_root);
@@ -62,19 +67,19 @@ internal sealed class RunLimitOptions
             }
             catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
             {
-                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --root: " + e.Message);
+                context.Error.WriteLine(GateMessages.Usage("--root: " + e.Message));
                 return false;
             }
             if (!Directory.Exists(fullRoot))
             {
-                context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --root: no such folder '" + Harness.Formatting.CellText.Safe(root) + "'");
+                context.Error.WriteLine(GateMessages.Usage("--root: no such folder '" + CellText.Safe(root) + "'"));
                 return false;
             }
         }
-        options = RunOptions.Default with
+        options = options with
         {
-            MaxRows = maxRows ?? RunOptions.Default.MaxRows,
-            MaxStringBytes = maxBytes ?? RunOptions.Default.MaxStringBytes,
+            MaxRows = maxRows ?? Defaults.MaxRows,
+            MaxStringBytes = maxBytes ?? Defaults.MaxStringBytes,
             Root = fullRoot,
             AllowOutsideRoot = parse.GetValue(_allowOutsideRoot),
         };

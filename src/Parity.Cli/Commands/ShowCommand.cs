@@ -1,8 +1,6 @@
 using System.CommandLine;
-using Parity.Engine.Errors;
-using Parity.Engine.Modes;
+using Parity.Harness.Gate;
 using Parity.Harness.Showing;
-using Parity.Script.Running;
 
 namespace Parity.Cli.Commands;
 
@@ -18,41 +16,26 @@ public static class ShowCommand
         var limits = new RunLimitOptions();
         var command = new Command("show", "Run a script in one mode and print one checkpoint's frame.") { script, checkpoint, mode, json };
         limits.AddTo(command);
-        command.SetAction(parse => !limits.TryGet(parse, context, out var runOptions) ? ExitCodes.BadInput : Execute(
-            context,
-            runOptions,
-            parse.GetValue(script) ?? "",
-            parse.GetValue(checkpoint) ?? "",
-            parse.GetValue(mode),
-            parse.GetValue(json)));
+        command.SetAction(parse =>
+        {
+            if (!limits.TryGet(parse, context, out var options)) return ExitCodes.BadInput;
+            var selected = GateModes.DefaultSingle;
+            if (parse.GetValue(mode) is { } modeText && !GateModes.TryParse(modeText, out selected, out var problem))
+            {
+                context.Error.WriteLine(GateMessages.Usage(problem));
+                return ExitCodes.BadInput;
+            }
+            var result = new GateSession(options).Show(parse.GetValue(script) ?? "", parse.GetValue(checkpoint) ?? "", selected);
+            foreach (var message in result.Messages)
+                context.Error.WriteLine(message);
+            if (result.Table is null)
+                return ExitCodes.BadInput;
+            if (parse.GetValue(json))
+                context.Out.Write(TableJson.ToJson(result.Label, result.Mode, result.Table));
+            else
+                TableText.Write(result.Table, context.Out);
+            return ExitCodes.Passed;
+        });
         return command;
-    }
-
-    private static int Execute(CliContext context, RunOptions options, string scriptArg, string label, string? modeText, bool json)
-    {
-        var mode = Mode.Modern;
-        if (modeText is not null && !Mode.TryParse(modeText, out mode))
-        {
-            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": '" + modeText + "' is not a mode; valid: " + Mode.ValidSpellings);
-            return ExitCodes.BadInput;
-        }
-        var path = Path.GetFullPath(scriptArg, context.WorkingDirectory);
-        if (!File.Exists(path))
-        {
-            context.Error.WriteLine(scriptArg + ": error " + ErrorCodes.FileNotFound + ": no such script");
-            return ExitCodes.BadInput;
-        }
-        var shown = Path.GetRelativePath(context.WorkingDirectory, path).Replace('\\', '/');
-        var text = File.ReadAllText(path);
-        var result = CheckpointShow.Run(text, shown, label, mode, Path.GetDirectoryName(path) ?? context.WorkingDirectory, options);
-        foreach (var message in result.Messages)
-            context.Error.WriteLine(message);
-        if (result.Table is null)
-            return ExitCodes.BadInput;
-        if (json)
-            context.Out.Write(TableJson.ToJson(result.Label, result.Mode, result.Table));
-        else
-            TableText.Write(result.Table, context.Out);
-        return ExitCodes.Passed;
     }
 }

@@ -15,6 +15,19 @@ namespace Parity.Harness.Inspection;
 /// </summary>
 public static class DataInspector
 {
+    /// <summary>
+    /// Inspects the file at <paramref name="path"/> as a script would load it; <paramref name="displayPath"/>
+    /// names it in messages, and a CSV file takes <paramref name="delimiter"/> and <paramref name="missingTokens"/>
+    /// as <c>load ... with (delimiter = ..., missing = [...])</c> does.
+    /// </summary>
+    public static DataInspection Inspect(string path, string displayPath, char? delimiter, IReadOnlyList<string>? missingTokens)
+    {
+        var options = LoadOptions.Default with { DisplayPath = displayPath };
+        if (delimiter is { } d) options = options with { Delimiter = d };
+        if (missingTokens is { Count: > 0 }) options = options with { MissingTokens = missingTokens };
+        return Inspect(path, options);
+    }
+
     public static DataInspection Inspect(string path, LoadOptions options)
     {
         var labels = new Dictionary<(StringStorage, MissingMarker), string[]>();

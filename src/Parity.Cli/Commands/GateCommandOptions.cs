@@ -1,0 +1,99 @@
+using System.CommandLine;
+using System.Globalization;
+using Parity.Harness.Formatting;
+using Parity.Harness.Gate;
+using Parity.Harness.Golden;
+using Parity.Harness.Reports;
+
+namespace Parity.Cli.Commands;
+
+/// <summary>
+/// The options <c>run</c>, <c>check</c>, <c>accept</c> and <c>matrix</c> share, and their parsing into
+/// <see cref="GateOptions"/>. The work itself is <see cref="GateSession"/>'s; this class only reads the
+/// command line and reports its mistakes (exit 2, before any work).
+/// </summary>
+internal static class GateCommandOptions
+{
+    public static Argument<string[]> Scripts() => new("SCRIPT|DIR") { Arity = ArgumentArity.OneOrMore, Description = "Scripts, or folders searched for *.parity files." };
+
+    public static Option<string> Modes() => new("--modes") { Description = "Modes to compare, comma-separated: legacy, modern, all, or STRINGS+MISSING+WRITES (default legacy,modern)." };
+
+    public static Option<string> Golden() => new("--golden") { Description = "The golden store folder (default: golden in the working directory)." };
+
+    public static Option<string> Out() => new("--out") { Description = "Folder for the reports." };
+
+    public static Option<string> Format() => new("--format") { Description = "Report formats for --out, comma-separated: md, json, junit, html (default: all)." };
+
+    public static Option<string> FloatTolerance() => new("--float-tolerance") { Description = "Largest absolute difference under which two numbers count as equal (default 0: exact)." };
+
+    public static Option<int?> RowLimit() => new("--row-limit") { Description = "Frames with more rows keep a summary and hash in text and the data in an Arrow IPC file (default 1000)." };
+
+    /// <summary>Reads <c>--modes</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
+    public static bool TryModes(CliContext context, string? text, ref GateOptions options)
+    {
+        if (text is null) return true;
+        if (GateModes.TryParseList(text, out var modes, out var problem))
+        {
+            options = options with { Modes = modes };
+            return true;
+        }
+        context.Error.WriteLine(GateMessages.Usage("--modes: " + problem));
+        return false;
+    }
+
+    /// <summary>Reads <c>--float-tolerance</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
+    public static bool TryTolerance(CliContext context, string? text, ref GateOptions options)
+    {
+        if (text is null) return true;
+        if (double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var tolerance) && double.IsFinite(tolerance) && tolerance >= 0)
+        {
+            options = options with { Diff = options.Diff with { FloatTolerance = tolerance } };
+            return true;
+        }
+        context.Error.WriteLine(GateMessages.Usage("--float-tolerance: '" + CellText.Safe(text) + "' is not a number of 0 or more"));
+        return false;
+    }
+
+    /// <summary>Reads <c>--row-limit</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
+    public static bool TryRowLimit(CliContext context, int? value, ref GateOptions options)
+    {
+        var rowLimit = value ?? GoldenStore.DefaultRowLimit;
+        if (rowLimit >= 0)
+        {
+            options = options with { RowLimit = rowLimit };
+            return true;
+        }
+        context.Error.WriteLine(GateMessages.Usage("--row-limit must be 0 or more"));
+        return false;
+    }
+
+    /// <summary>Reads <c>--golden</c> into <paramref name="options"/>.</summary>
+    public static GateOptions WithGolden(GateOptions options, string? golden) => golden is null ? options : options with { Golden = golden };
+
+    public static bool TryWriters(CliContext context, string? outDir, string? formats, out IReadOnlyList<IReportWriter> writers)
+    {
+        writers = [];
+        if (outDir is null)
+        {
+            if (formats is null) return true;
+            context.Error.WriteLine(GateMessages.Usage("--format needs --out DIR"));
+            return false;
+        }
+        try
+        {
+            writers = ReportWriters.Create([formats ?? string.Join(",", ReportWriters.Formats)]);
+            return true;
+        }
+        catch (ArgumentException ex)
+        {
+            context.Error.WriteLine(GateMessages.Usage("--format: " + ex.Message.Split(" (Parameter", StringSplitOptions.None)[0]));
+            return false;
+        }
+    }
+
+    /// <summary>Prints each bad-input message on stderr.</summary>
+    public static void WriteProblems(CliContext context, IReadOnlyList<string> problems)
+    {
+        foreach (var p in problems) context.Error.WriteLine(p);
+    }
+}
