@@ -26,7 +26,7 @@ public static class Arithmetic
             var overflow = IntLoop(op, ia.Span, ib.Span, data, missing);
             if (overflow >= 0)
                 throw new EngineException(ErrorCodes.Overflow,
-                    $"int64 overflow in '{Symbol(op)}' at row {overflow + 1}");
+                    $"int64 overflow in '{Symbol(op)}' at row {overflow}");
             return KernelSupport.Int(data, missing, mode);
         }
         return Floats(op, a, b, missing, mode);
@@ -48,7 +48,7 @@ public static class Arithmetic
                 if (src[i] == long.MinValue && overflow < 0) overflow = i;
                 data[i] = unchecked(-src[i]);
             }
-            if (overflow >= 0) throw new EngineException(ErrorCodes.Overflow, $"int64 overflow in '-' at row {overflow + 1}");
+            if (overflow >= 0) throw new EngineException(ErrorCodes.Overflow, $"int64 overflow in '-' at row {overflow}");
             return KernelSupport.Int(data, missing, mode);
         }
         var d = KernelSupport.ToDoubles(a);

@@ -38,10 +38,21 @@ public static class Blending
             var fast = SameType(old, values, selected, mode);
             if (fast is not null) return fast;
         }
-        // The generic path: decode, unify, rebuild.
+        // The generic path: decode, unify, rebuild. docs/semantics.md, "Missing values written": None is the
+        // marker of a boxed string cell only; a missing value written into a column that holds no string (a
+        // bool column, or one of bools and NaN) is NaN.
+        var noneIsNaN = mode.IsNan && old is not null && !KernelSupport.AllMissing(old) && !HoldsString(old) && !HoldsString(values, selected);
         var cells = new Value[n];
         for (var i = 0; i < n; i++)
-            cells[i] = selected[i] ? values.GetValue(i) : old is null ? Value.MissingOf(MissingFor(values, mode)) : old.GetValue(i);
+        {
+            if (!selected[i])
+                cells[i] = old is null ? Value.MissingOf(MissingFor(values, mode)) : old.GetValue(i);
+            else
+            {
+                var v = values.GetValue(i);
+                cells[i] = noneIsNaN && v.Missing == MissingKind.NoneRef ? Value.NaN : v;
+            }
+        }
         ColumnType? hint = old?.Type ?? values.Type;
         if (!KernelSupport.AllMissing(values) && old is not null && KernelSupport.AllMissing(old)) hint = values.Type;
         if (hint == ColumnType.Utf8 && mode.IsBoxed) hint = ColumnType.Object;
@@ -82,6 +93,17 @@ public static class Blending
         }
         if (old.Type == ColumnType.Float64 && type == ColumnType.Int64) return ColumnType.Float64;
         return type;
+    }
+
+    /// <summary>True when a cell of <paramref name="c"/> (among <paramref name="selected"/> rows, when given) is a string.</summary>
+    private static bool HoldsString(Column c, ReadOnlySpan<bool> selected = default)
+    {
+        if (c is Utf8Column) return c.MissingCount < c.Length;
+        if (c is not ObjectColumn o) return false;
+        var cells = o.Cells.Span;
+        for (var i = 0; i < cells.Length; i++)
+            if (cells[i] is string && (selected.IsEmpty || selected[i])) return true;
+        return false;
     }
 
     private static MissingKind MissingFor(Column c, Mode mode) =>

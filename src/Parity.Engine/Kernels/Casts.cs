@@ -8,10 +8,12 @@ namespace Parity.Engine.Kernels;
 
 /// <summary>
 /// <c>cast c to int64|float64|bool|string|timestamp</c> and <c>text(x)</c>. Casting to the type a column
-/// already has returns the same column object (no copy). Spec §2.2: to int64 with a missing value is
-/// <c>E-CAST</c> under <c>nan</c> (NaN has no integer form) and keeps the null under <c>null</c>; to string
-/// follows <c>text(x)</c>: under <c>boxed+nan</c> a missing value becomes the string <c>nan</c>, in every other
-/// mode it stays missing.
+/// already has returns the same column object (no copy). docs/semantics.md, "cast c to int64": to int64 with a
+/// missing value is <c>E-CAST</c> under <c>nan</c> (NaN has no integer form) and keeps the null under <c>null</c>;
+/// a float with a fractional part is truncated toward zero under <c>nan</c> and is <c>E-CAST</c> under <c>null</c>,
+/// whose Arrow-backed integers refuse a lossy cast. To string follows <c>text(x)</c>: under <c>boxed+nan</c> a
+/// missing value becomes the string <c>nan</c>, in every other mode it stays missing. Rows in messages are
+/// numbered from 0, as everywhere a user reads them.
 /// </summary>
 public static class Casts
 {
@@ -64,7 +66,7 @@ public static class Casts
     }
 
     private static EngineException Fail(Column c, int row, string target, string why) =>
-        new(ErrorCodes.Cast, $"cannot cast {Describe(c.GetValue(row))} (row {row + 1}) to {target}: {why}");
+        new(ErrorCodes.Cast, $"cannot cast {Describe(c.GetValue(row))} (row {row}) to {target}: {why}");
 
     private static string Describe(Value v) => v.Kind switch
     {
@@ -94,6 +96,7 @@ public static class Casts
                     var d = v.Float64;
                     if (double.IsNaN(d) || double.IsInfinity(d)) throw Fail(c, i, "int64", "not a finite number");
                     var t = Math.Truncate(d); // toward zero, as legacy stacks' integer casts do
+                    if (t != d && mode.IsNull) throw Fail(c, i, "int64", "it has a fractional part and the cast would lose it");
                     if (t < -9.2233720368547758e18 || t >= 9.2233720368547758e18) throw Fail(c, i, "int64", "out of range");
                     data[i] = (long)t;
                     break;

@@ -124,7 +124,7 @@ public static partial class Comparison
         }
         if (bad >= 0)
             throw new EngineException(ErrorCodes.Type,
-                $"cannot order {Kind(left.GetValue(bad))} and {Kind(right.GetValue(bad))} with '{Symbol(op)}' (row {bad + 1})");
+                $"cannot order {Kind(left.GetValue(bad))} and {Kind(right.GetValue(bad))} with '{Symbol(op)}' (row {bad})");
         _ = mode;
     }
 

@@ -47,7 +47,7 @@ public static class Functions
                 if (v == long.MinValue && overflow < 0 && (missing is null || !missing[i])) overflow = i;
                 data[i] = v < 0 ? unchecked(-v) : v;
             }
-            if (overflow >= 0) throw new EngineException(ErrorCodes.Overflow, $"int64 overflow in abs at row {overflow + 1}");
+            if (overflow >= 0) throw new EngineException(ErrorCodes.Overflow, $"int64 overflow in abs at row {overflow}");
             return KernelSupport.Int(data, missing, mode);
         }
         var d = KernelSupport.ToDoubles(a);

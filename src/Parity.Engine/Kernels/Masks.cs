@@ -41,7 +41,7 @@ public static class Masks
                 {
                     if (mode.IsNan && condition is ObjectColumn)
                         throw new EngineException(ErrorCodes.MaskMissing,
-                            $"the condition holds a missing value ({ValueText.MissingName(v.Missing)}) at row {i + 1}; it cannot select rows");
+                            $"the condition holds a missing value ({ValueText.MissingName(v.Missing)}) at row {i}; it cannot select rows");
                     nullCount++;
                     continue;
                 }

@@ -250,7 +250,7 @@ public static partial class StringKernels
         }
         return upper
             ? MapBoxed(s, mode, "upper", CaseMapping.ToUpper)
-            : MapBoxed(s, mode, "lower", CaseMapping.ToLower);
+            : MapBoxed(s, mode, "lower", CaseMapping.ToLowerFinalSigma); // boxed only (docs/semantics.md)
     }
 
     private static Validity CopyValidity(Utf8Column u)

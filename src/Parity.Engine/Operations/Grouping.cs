@@ -1,5 +1,7 @@
+using Parity.Engine.Columns;
 using Parity.Engine.Errors;
 using Parity.Engine.Frames;
+using Parity.Engine.Modes;
 using Parity.Engine.Operations.Internal;
 
 namespace Parity.Engine.Operations;
@@ -52,7 +54,36 @@ public static class Grouping
         return new GroupIndex(groupOf, groupCount, representative, dropped);
     }
 
-    private static Columns.Column KeyColumn(Table table, string name)
+    /// <summary>
+    /// The key columns of the result, one row per group (the first row of each). docs/semantics.md, "Grouping":
+    /// under <c>nan</c> a bool column with missing values is <c>object</c>; once the rows with a missing key are
+    /// dropped its keys are plain booleans, so the key column comes out <c>bool</c>.
+    /// </summary>
+    public static Table KeyTable(Table table, IReadOnlyList<string> keys, GroupIndex groups, Mode mode)
+    {
+        var columns = new Column[keys.Count];
+        for (var i = 0; i < columns.Length; i++) columns[i] = KeyColumn(table, keys[i]);
+        var gathered = TableOps.Gather(new Table(keys, columns, table.RowCount), groups.Representative, mode);
+        var result = new Column[columns.Length];
+        for (var i = 0; i < result.Length; i++)
+            result[i] = gathered.Columns[i] is ObjectColumn o ? (Column?)AsBools(o) ?? o : gathered.Columns[i];
+        return new Table(gathered.Names, result, gathered.RowCount);
+    }
+
+    /// <summary>A bool column of the same cells when every cell is a bool; otherwise null.</summary>
+    private static BoolColumn? AsBools(ObjectColumn column)
+    {
+        var cells = column.Cells.Span;
+        var data = new bool[cells.Length];
+        for (var i = 0; i < cells.Length; i++)
+        {
+            if (cells[i] is not bool b) return null;
+            data[i] = b;
+        }
+        return new BoolColumn(data, column.Marker);
+    }
+
+    private static Column KeyColumn(Table table, string name)
     {
         var index = table.IndexOf(name);
         if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{name}'");

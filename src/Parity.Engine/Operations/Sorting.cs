@@ -73,11 +73,35 @@ public static class Sorting
         {
             var index = table.IndexOf(keys[k].Column);
             if (index < 0) throw new EngineException(ErrorCodes.UnknownColumn, $"no column '{keys[k].Column}'");
+            if (table.Columns[index] is ObjectColumn cells) RequireOneKind(cells, keys[k].Column);
             var ranks = ColumnRanker.Rank(table.Columns[index]);
             SortRanks(ranks, keys[k].Descending, sortRanks);
             KeyCombiner.Append(acc, ref card, sortRanks, ranks.ValueCount + 1);
         }
         return acc;
+    }
+
+    /// <summary>
+    /// docs/semantics.md, "Ordering": a boxed column whose cells are of more than one kind (numbers, bools,
+    /// strings, timestamps; int64 and float64 are one kind) cannot be ordered, as comparing its cells with
+    /// <c>&lt;</c> cannot: <c>E-TYPE</c> naming the first row of each of two kinds.
+    /// </summary>
+    private static void RequireOneKind(ObjectColumn column, string name)
+    {
+        var cells = column.Cells.Span;
+        var marker = column.Marker;
+        var firstRow = -1;
+        var firstKind = -1;
+        for (var i = 0; i < cells.Length; i++)
+        {
+            var c = cells[i];
+            if (ObjectColumn.IsMissingCell(c, marker)) continue;
+            var kind = CellOrder.KindOf(c!);
+            if (firstRow < 0) { firstRow = i; firstKind = kind; continue; }
+            if (kind == firstKind) continue;
+            throw new EngineException(ErrorCodes.Type,
+                $"cannot order column '{name}': it mixes {CellOrder.KindName(firstKind)} (row {firstRow}) and {CellOrder.KindName(kind)} (row {i}), which do not compare");
+        }
     }
 
     /// <summary>Ranks as sort positions: values (reversed when descending), then the NaN value, then missing.</summary>

@@ -1,4 +1,5 @@
 using System.Buffers;
+using System.Globalization;
 using System.Text;
 
 namespace Parity.Engine.Text;
@@ -6,9 +7,10 @@ namespace Parity.Engine.Text;
 /// <summary>
 /// Unicode full case mapping (Unicode Standard §3.13, "Default Case Conversion"): each code point maps through
 /// the unconditional entries of SpecialCasing.txt when it has one, else through its simple mapping
-/// (UnicodeData.txt, as .NET's invariant <see cref="Rune.ToUpperInvariant"/> gives it). Conditional
-/// (language- or context-sensitive) mappings such as Final_Sigma are not applied: the result must not
-/// depend on a locale or on neighbouring letters.
+/// (UnicodeData.txt, as .NET's invariant <see cref="Rune.ToUpperInvariant"/> gives it). Language-sensitive
+/// mappings (Turkish, Lithuanian) are never applied: the result must not depend on a locale. The one
+/// context-sensitive mapping, Final_Sigma, is applied by <see cref="ToLowerFinalSigma"/> only, which boxed
+/// string storage uses (docs/semantics.md: Arrow's lower-casing maps Σ to σ wherever it stands).
 /// <para>
 /// The table below holds every unconditional SpecialCasing.txt entry whose full mapping differs from the
 /// simple one (Unicode 15.1, value from memory), plus two UnicodeData.txt simple mappings that .NET's invariant
@@ -32,6 +34,118 @@ public static class CaseMapping
     public static string ToUpper(string s) => Map(s, upper: true);
 
     public static string ToLower(string s) => Map(s, upper: false);
+
+    /// <summary>
+    /// <see cref="ToLower(string)"/> with the Final_Sigma context of SpecialCasing.txt (Unicode Standard §3.13,
+    /// Table 3-17): U+03A3 Σ becomes U+03C2 ς when a cased letter comes before it, with only case-ignorable
+    /// characters between, and no cased letter comes after it with only case-ignorable characters between;
+    /// otherwise σ.
+    /// </summary>
+    public static string ToLowerFinalSigma(string s)
+    {
+        var sigma = s.IndexOf('\u03A3', StringComparison.Ordinal);
+        if (sigma < 0) return Map(s, upper: false);
+        var sb = new StringBuilder(s.Length + 8);
+        sb.Append(Map(s[..sigma], upper: false));
+        var i = sigma;
+        while (i < s.Length)
+        {
+            var next = s.IndexOf('\u03A3', i);
+            if (next < 0)
+            {
+                sb.Append(Map(s[i..], upper: false));
+                break;
+            }
+            if (next > i) sb.Append(Map(s[i..next], upper: false));
+            sb.Append(IsFinalSigma(s, next) ? '\u03C2' : '\u03C3');
+            i = next + 1;
+        }
+        return sb.ToString();
+    }
+
+    /// <summary>
+    /// Final_Sigma at <paramref name="at"/>: before it <c>\p{cased} (\p{case-ignorable})*</c>, and after it not
+    /// <c>(\p{case-ignorable})* \p{cased}</c>. A character may be both cased and case-ignorable (U+02B0): as in
+    /// the regular expressions, it then serves as the cased letter.
+    /// </summary>
+    internal static bool IsFinalSigma(string s, int at)
+    {
+        var before = false;
+        for (var i = at; i > 0;)
+        {
+            Rune.DecodeLastFromUtf16(s.AsSpan(0, i), out var r, out var len);
+            i -= len;
+            if (IsCased(r)) { before = true; break; }
+            if (!IsCaseIgnorable(r)) break;
+        }
+        if (!before) return false;
+        for (var i = at + 1; i < s.Length;)
+        {
+            Rune.DecodeFromUtf16(s.AsSpan(i), out var r, out var len);
+            i += len;
+            if (IsCased(r)) return false;
+            if (!IsCaseIgnorable(r)) break;
+        }
+        return true;
+    }
+
+    /// <summary>
+    /// Cased (Unicode Standard §3.13, D135): Lowercase or Uppercase (general categories Ll, Lu plus
+    /// Other_Lowercase, Other_Uppercase of PropList.txt) or general category Lt. The Other_ ranges are from
+    /// memory of PropList.txt (Unicode 15.1).
+    /// </summary>
+    internal static bool IsCased(Rune r)
+    {
+        switch (Rune.GetUnicodeCategory(r))
+        {
+            case UnicodeCategory.UppercaseLetter:
+            case UnicodeCategory.LowercaseLetter:
+            case UnicodeCategory.TitlecaseLetter:
+                return true;
+        }
+        var v = r.Value;
+        foreach (var (lo, hi) in OtherCased)
+        {
+            if (v < lo) return false;
+            if (v <= hi) return true;
+        }
+        return false;
+    }
+
+    /// <summary>
+    /// Case_Ignorable (Unicode Standard §3.13, D136): general category Mn, Me, Cf, Lm or Sk, or Word_Break
+    /// MidLetter, MidNumLet or Single_Quote (WordBreakProperty.txt; the code points below from memory).
+    /// </summary>
+    internal static bool IsCaseIgnorable(Rune r)
+    {
+        switch (Rune.GetUnicodeCategory(r))
+        {
+            case UnicodeCategory.NonSpacingMark:
+            case UnicodeCategory.EnclosingMark:
+            case UnicodeCategory.Format:
+            case UnicodeCategory.ModifierLetter:
+            case UnicodeCategory.ModifierSymbol:
+                return true;
+        }
+        return r.Value switch
+        {
+            0x0027 => true,                                                      // Single_Quote
+            0x002E or 0x2018 or 0x2019 or 0x2024 or 0xFE52 or 0xFF07 or 0xFF0E => true, // MidNumLet
+            0x003A or 0x00B7 or 0x0387 or 0x055F or 0x05F4 or 0x2027 or 0xFE13 or 0xFE55 or 0xFF1A => true, // MidLetter
+            _ => false,
+        };
+    }
+
+    /// <summary>Other_Lowercase and Other_Uppercase (PropList.txt), merged and sorted by first code point.</summary>
+    private static readonly (int Lo, int Hi)[] OtherCased =
+    [
+        (0x00AA, 0x00AA), (0x00BA, 0x00BA), (0x02B0, 0x02B8), (0x02C0, 0x02C1), (0x02E0, 0x02E4), (0x0345, 0x0345),
+        (0x037A, 0x037A), (0x10FC, 0x10FC), (0x1D2C, 0x1D6A), (0x1D78, 0x1D78), (0x1D9B, 0x1DBF), (0x2071, 0x2071),
+        (0x207F, 0x207F), (0x2090, 0x209C), (0x2160, 0x217F), (0x24B6, 0x24E9), (0x2C7C, 0x2C7D), (0xA69C, 0xA69D),
+        (0xA770, 0xA770), (0xA7F2, 0xA7F4), (0xA7F8, 0xA7F9), (0xAB5C, 0xAB5F), (0xAB69, 0xAB69), (0x10780, 0x10780),
+        (0x10783, 0x10785), (0x10787, 0x107B0), (0x107B2, 0x107BA), (0x1E030, 0x1E06D), (0x1F130, 0x1F149),
+        (0x1F150, 0x1F169), (0x1F170, 0x1F189),
+    ];
 
     /// <summary>Maps <paramref name="utf8"/> into <paramref name="destination"/> (at least <see cref="MaxUtf8Growth"/> times as long); returns bytes written.</summary>
     public static int ToUpper(ReadOnlySpan<byte> utf8, Span<byte> destination) => Map(utf8, destination, upper: true);

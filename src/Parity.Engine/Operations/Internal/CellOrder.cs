@@ -21,6 +21,15 @@ internal sealed class CellOrder : IComparer<object>, IEqualityComparer<object>
         _ => 2,
     };
 
+    /// <summary>The kind's name in messages.</summary>
+    public static string KindName(int kind) => kind switch
+    {
+        0 => "numbers",
+        1 => "bools",
+        3 => "timestamps",
+        _ => "strings",
+    };
+
     public int Compare(object? x, object? y)
     {
         if (x is null || y is null) return (x is null ? 1 : 0) - (y is null ? 1 : 0);

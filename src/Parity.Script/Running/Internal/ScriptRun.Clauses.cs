@@ -257,9 +257,7 @@ internal sealed partial class ScriptRun
         if (gi.DroppedRows > 0)
             _run.Notes.Add(new RunNote(RunNote.MissingGroupKey, group.Span.LineNumber, group.Span.ColumnNumber, gi.DroppedRows,
                 $"{gi.DroppedRows.ToString(CultureInfo.InvariantCulture)} rows dropped from grouping because a key was missing"));
-        var keyCols = new Column[keys.Count];
-        for (var i = 0; i < keyCols.Length; i++) keyCols[i] = table[keys[i]];
-        var keyTable = Kernel(group, () => TableOps.Gather(new Table(keys, keyCols, table.RowCount), gi.Representative, _mode));
+        var keyTable = Kernel(group, () => Grouping.KeyTable(table, keys, gi, _mode));
         var names = new List<string>(keyTable.Names);
         var cols = new List<Column>(keyTable.Columns);
         var scope = new Scope(table, name, gi, keyTable);
