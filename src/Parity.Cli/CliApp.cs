@@ -54,6 +54,7 @@ public static class CliApp
         yield return ShowCommand.Create(context);
         yield return InspectCommand.Create(context);
         yield return MatrixCommand.Create(context);
+        yield return ShrinkCommand.Create(context);
         yield return FixturesCommand.Create(context);
     }
 }

@@ -43,6 +43,7 @@ public static class ErrorCodes
     public const string Golden = "E-GOLDEN";
     public const string GoldenLock = "E-GOLDEN-LOCK";
     public const string Internal = "E-INTERNAL";
+    public const string NoSuchFinding = "E-NO-FINDING";
 
     // Warnings (spec §2.2)
     public const string MaybeCopy = "W-MAYBE-COPY";

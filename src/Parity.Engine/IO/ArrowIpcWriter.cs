@@ -33,8 +33,6 @@ public static class ArrowIpcWriter
 
     public static void Write(Table table, string path)
     {
-        var bounds = BatchBounds(table);
-        var batch = ToRecordBatch(bounds.Count == 2 ? table : Slice(table, 0, bounds[1]));
         var full = Path.GetFullPath(path);
         var dir = Path.GetDirectoryName(full) ?? ".";
         Directory.CreateDirectory(dir);
@@ -43,11 +41,7 @@ public static class ArrowIpcWriter
         {
             using (var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
             {
-                using var writer = new ArrowFileWriter(stream, batch.Schema, leaveOpen: true);
-                writer.WriteRecordBatch(batch);
-                for (var b = 1; b < bounds.Count - 1; b++)
-                    writer.WriteRecordBatch(ToRecordBatch(Slice(table, bounds[b], bounds[b + 1] - bounds[b])));
-                writer.WriteEnd();
+                WriteTo(stream, table);
                 stream.Flush(flushToDisk: true);
             }
             File.Move(temp, full, overwrite: true);
@@ -56,6 +50,18 @@ public static class ArrowIpcWriter
         {
             if (File.Exists(temp)) File.Delete(temp);
         }
+    }
+
+    /// <summary>Writes the table as an Arrow IPC file to <paramref name="stream"/> (left open; not atomic by itself).</summary>
+    public static void WriteTo(Stream stream, Table table)
+    {
+        var bounds = BatchBounds(table);
+        var batch = ToRecordBatch(bounds.Count == 2 ? table : Slice(table, 0, bounds[1]));
+        using var writer = new ArrowFileWriter(stream, batch.Schema, leaveOpen: true);
+        writer.WriteRecordBatch(batch);
+        for (var b = 1; b < bounds.Count - 1; b++)
+            writer.WriteRecordBatch(ToRecordBatch(Slice(table, bounds[b], bounds[b + 1] - bounds[b])));
+        writer.WriteEnd();
     }
 
     /// <summary>

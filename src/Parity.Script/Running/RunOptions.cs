@@ -19,6 +19,13 @@ public sealed record RunOptions
     /// </summary>
     public bool KeepParsedSources { get; init; } = true;
 
+    /// <summary>
+    /// Where loads get their tables instead of reading the file: given the resolved full path, the load's
+    /// options and the mode, a table, or null to read the file as usual. <c>parity shrink</c> hands over cut-down
+    /// copies of tables it read once (docs/workflow.md); path checks still apply first.
+    /// </summary>
+    public Func<string, Parity.Engine.IO.LoadOptions, Parity.Engine.Modes.Mode, Parity.Engine.Frames.Table?>? TableSource { get; init; }
+
     /// <summary>Most UTF-8 bytes one string cell may have before the run stops with E-LIMIT.</summary>
     public long MaxStringBytes { get; init; } = 256L * 1024 * 1024;
 }

@@ -155,7 +155,7 @@ internal static class CsvSourceReader
         return columns;
     }
 
-    private static bool IsMissing(ReadOnlySpan<char> value, IReadOnlyList<string> tokens)
+    internal static bool IsMissing(ReadOnlySpan<char> value, IReadOnlyList<string> tokens)
     {
         if (tokens.Count == 1 && tokens[0].Length == 0) return value.IsEmpty; // the default
         for (var i = 0; i < tokens.Count; i++)

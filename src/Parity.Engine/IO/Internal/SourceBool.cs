@@ -18,4 +18,6 @@ internal sealed class SourceBool(string name, ReadOnlyMemory<bool> values, Valid
             cells[i] = !validity.IsValid(i) ? SharedBoxes.NaN : src[i] ? SharedBoxes.True : SharedBoxes.False;
         return new ObjectColumn(cells, MissingMarker.Nan);
     }
+
+    public override SourceColumn Take(int[] rows) => new SourceBool(Name, TakeValues(values.Span, rows), TakeValidity(validity, rows));
 }

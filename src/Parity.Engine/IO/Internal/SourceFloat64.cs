@@ -20,4 +20,6 @@ internal sealed class SourceFloat64(string name, ReadOnlyMemory<double> values, 
         for (var i = 0; i < data.Length; i++) data[i] = validity.IsValid(i) ? src[i] : double.NaN;
         return new Float64Column(data, MissingMarker.Nan);
     }
+
+    public override SourceColumn Take(int[] rows) => new SourceFloat64(Name, TakeValues(values.Span, rows), TakeValidity(validity, rows));
 }

@@ -17,4 +17,6 @@ internal sealed class SourceInt64(string name, ReadOnlyMemory<long> values, Vali
         for (var i = 0; i < data.Length; i++) data[i] = validity.IsValid(i) ? src[i] : double.NaN;
         return new Float64Column(data, MissingMarker.Nan);
     }
+
+    public override SourceColumn Take(int[] rows) => new SourceInt64(Name, TakeValues(values.Span, rows), TakeValidity(validity, rows));
 }

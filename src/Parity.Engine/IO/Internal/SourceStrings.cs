@@ -28,6 +28,30 @@ internal sealed class SourceStrings(string name, StringArray array, bool nullIsN
         return new ObjectColumn(cells, mode.Missing);
     }
 
+    public override SourceColumn Take(int[] rows)
+    {
+        var offsets = new int[rows.Length + 1];
+        long bytes = 0;
+        for (var i = 0; i < rows.Length; i++)
+        {
+            if (!array.IsNull(rows[i])) bytes += array.GetBytes(rows[i]).Length;
+            offsets[i + 1] = (int)Math.Min(bytes, int.MaxValue);
+        }
+        var data = new byte[bytes];
+        var flags = new bool[rows.Length];
+        var nulls = 0;
+        for (var i = 0; i < rows.Length; i++)
+        {
+            if (array.IsNull(rows[i])) { nulls++; continue; }
+            flags[i] = true;
+            array.GetBytes(rows[i]).CopyTo(data.AsSpan(offsets[i]));
+        }
+        var offsetBytes = new byte[offsets.Length * 4];
+        System.Runtime.InteropServices.MemoryMarshal.AsBytes(offsets.AsSpan()).CopyTo(offsetBytes);
+        var bitmap = nulls == 0 ? ArrowBuffer.Empty : new ArrowBuffer(Validity.FromFlags(flags).Bits);
+        return new SourceStrings(Name, new StringArray(rows.Length, new ArrowBuffer(offsetBytes), new ArrowBuffer(data), bitmap, nulls), nullIsNone);
+    }
+
     private string?[] Decoded()
     {
         if (_decoded is not null) return _decoded;

@@ -8,4 +8,6 @@ internal sealed class SourceTimestamp(string name, ReadOnlyMemory<long> values, 
 {
     public override Column ToColumn(Mode mode) =>
         new TimestampColumn(values, validity.NullCount > 0 ? validity : Validity.AllValid(Length), mode.Missing);
+
+    public override SourceColumn Take(int[] rows) => new SourceTimestamp(Name, TakeValues(values.Span, rows), TakeValidity(validity, rows));
 }

@@ -152,7 +152,7 @@ internal sealed partial class ScriptRun
         Table table;
         try
         {
-            table = DataLoader.Load(full, options, _mode);
+            table = _options.TableSource?.Invoke(full, options, _mode) ?? DataLoader.Load(full, options, _mode);
         }
         catch (EngineException e)
         {
