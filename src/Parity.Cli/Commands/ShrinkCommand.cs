@@ -86,7 +86,8 @@ public static class ShrinkCommand
         o.Write("  script: " + CellText.Safe(ScriptFiles.Relative(result.ScriptOut, context.WorkingDirectory)) + "\n");
         var secs = result.Elapsed.TotalSeconds.ToString("0.0", CultureInfo.InvariantCulture);
         if (result.StoppedByTimeLimit)
-            o.Write("stopped by the time bound (--seconds " + N(seconds) + ") after " + N(result.Attempts) + " attempts in " + secs + " s: the fixture keeps the finding but may not be minimal; run again with more seconds\n");
+            o.Write("stopped by the time bound (--seconds " + N(seconds) + ") after " + N(result.Attempts) + " attempts in " + secs + " s: the fixture keeps the finding but may not be minimal"
+                + (result.Verified ? "" : " (not run again from the written files: the bound had passed)") + "; run again on the result, or with more seconds\n");
         else
             o.Write(N(result.Attempts) + " attempts in " + secs + " s; 1-minimal: removing any one remaining row loses the finding\n");
     }

@@ -13,6 +13,12 @@ public sealed record ShrinkResult
     /// <summary>The finding as it appears on the reduced fixture (checked by running the written files).</summary>
     public required Finding Finding { get; init; }
 
+    /// <summary>
+    /// True when the written files were run again from disk and showed the finding; false only when the time
+    /// bound had passed before that check (the attempts that kept the finding ran on the same tables).
+    /// </summary>
+    public required bool Verified { get; init; }
+
     /// <summary>Runs of the two modes on candidate fixtures (the first run on the original data not counted).</summary>
     public required int Attempts { get; init; }
 

@@ -53,12 +53,12 @@ public static class Shrinker
         if (outcome.IsBadInput)
             throw new EngineException(ErrorCodes.Usage, string.Join("\n", outcome.BadInputMessages));
         var findings = ModeDiffer.CompareAll(first, shown, request.Diff);
-        if (FindingKeys.Find(findings, request.FindingKey) is null)
-            throw new EngineException(ErrorCodes.NoSuchFinding, NotFound(request.FindingKey, shown, request.Modes, findings));
+        var original = FindingKeys.Find(findings, request.FindingKey)
+            ?? throw new EngineException(ErrorCodes.NoSuchFinding, NotFound(request.FindingKey, shown, request.Modes, findings));
 
         var sources = ReadSources(loads);
         CheckOutputs(request, sources);
-        var state = new Attempts(parsed.Script, request, scriptDir, sources, start);
+        var state = new Attempts(parsed.Script, request, scriptDir, sources, start) { Last = original };
         var mentioned = ScriptNames.Mentioned(text);
 
         // Rows of each file: nothing at all if the finding survives that, else delta debugging.
@@ -117,12 +117,16 @@ public static class Shrinker
         }
 
         var files = Write(request, text, parsed.Script, sources);
-        var kept = Verify(request, shown, files.ScriptOut);
+        // The written files are run once more from disk, as `run` would read them, unless the bound has passed
+        // (the fixture may then still be large; every attempt that kept it already ran on the same tables).
+        var verified = state.TimeLeft || !state.Stopped;
+        var kept = verified ? Verify(request, shown, files.ScriptOut) : state.Last;
         return new ShrinkResult
         {
             ScriptOut = files.ScriptOut,
             Files = files.Files,
             Finding = kept,
+            Verified = verified,
             Attempts = state.Count,
             StoppedByTimeLimit = state.Stopped,
             Elapsed = time.GetElapsedTime(start),

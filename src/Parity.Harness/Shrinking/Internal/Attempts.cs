@@ -1,6 +1,7 @@
 using Parity.Engine.IO;
 using Parity.Engine.Modes;
 using Parity.Harness.Diffing;
+using Parity.Harness.Findings;
 using Parity.Script.Syntax;
 using Table = Parity.Engine.Frames.Table;
 
@@ -18,6 +19,12 @@ internal sealed class Attempts(ScriptNode script, ShrinkRequest request, string 
     public int Count { get; private set; }
 
     public bool Stopped { get; private set; }
+
+    /// <summary>The finding as the last attempt that kept it saw it (first: the run on the original data).</summary>
+    public required Finding Last { get; set; }
+
+    /// <summary>True while the time bound has not passed.</summary>
+    public bool TimeLeft => request.Time.GetElapsedTime(start) < request.TimeLimit;
 
     /// <summary>
     /// True when the finding appears with <paramref name="rows"/> and <paramref name="keep"/> for
@@ -43,7 +50,9 @@ internal sealed class Attempts(ScriptNode script, ShrinkRequest request, string 
             TableSource = (full, loadOptions, mode) => Table(full, loadOptions, mode, source, rows, keep, subsets),
         };
         var runs = Shrinker.RunModes(script, request, scriptDir, options);
-        var found = FindingKeys.Find(ModeDiffer.CompareAll(runs, runs[0].ScriptFile, request.Diff), request.FindingKey) is not null;
+        var finding = FindingKeys.Find(ModeDiffer.CompareAll(runs, runs[0].ScriptFile, request.Diff), request.FindingKey);
+        var found = finding is not null;
+        if (finding is not null) Last = finding;
         Count++;
         var took = request.Time.GetElapsedTime(before).TotalSeconds;
         // Cost model: a fixed part (the smallest attempt so far) plus a part per row (the latest attempt).
