@@ -1,8 +1,7 @@
 using System.CommandLine;
 using System.Diagnostics;
 using System.Globalization;
-using Parity.Engine.Errors;
-using Parity.Harness.Diffing;
+using Parity.Harness.Gate;
 using Parity.Harness.Formatting;
 using Parity.Harness.Running;
 using Parity.Harness.Shrinking;
@@ -21,28 +20,28 @@ public static class ShrinkCommand
         var finding = new Option<string>("--finding") { Description = "The finding's key, as the \"key\" field of report.json prints it.", Required = true };
         var outDir = new Option<string>("--out") { Description = "Folder for the reduced script and its data (default: shrink/SCRIPT-NAME)." };
         var seconds = new Option<int?>("--seconds") { Description = "Time bound in seconds (default 60); the best fixture found so far is kept." };
-        var modes = GateCommandCore.Modes();
-        var tolerance = GateCommandCore.FloatTolerance();
+        var modes = GateCommandOptions.Modes();
+        var tolerance = GateCommandOptions.FloatTolerance();
         var limits = new RunLimitOptions();
         var command = new Command("shrink", "Reduce the data a script loads to a few rows on which one finding still appears.") { script, finding, outDir, seconds, modes, tolerance };
         limits.AddTo(command);
-        command.SetAction(p => !limits.TryGet(p, context, out var runOptions) ? ExitCodes.BadInput
-            : Execute(context, runOptions, p.GetValue(script) ?? "", p.GetValue(finding) ?? "", p.GetValue(outDir), p.GetValue(seconds), p.GetValue(modes), p.GetValue(tolerance)));
+        command.SetAction(p => !limits.TryGet(p, context, out var options) ? ExitCodes.BadInput
+            : Execute(context, options, p.GetValue(script) ?? "", p.GetValue(finding) ?? "", p.GetValue(outDir), p.GetValue(seconds), p.GetValue(modes), p.GetValue(tolerance)));
         return command;
     }
 
-    private static int Execute(CliContext context, Script.Running.RunOptions runOptions, string script, string key, string? outDir, int? seconds, string? modesText, string? toleranceText)
+    private static int Execute(CliContext context, GateOptions options, string script, string key, string? outDir, int? seconds, string? modesText, string? toleranceText)
     {
-        if (!GateCommandCore.TryModes(context, modesText, out var modes) || !GateCommandCore.TryTolerance(context, toleranceText, out var tolerance))
+        if (!GateCommandOptions.TryModes(context, modesText, ref options) || !GateCommandOptions.TryTolerance(context, toleranceText, ref options))
             return ExitCodes.BadInput;
-        if (modes.Count != 2)
+        if (options.Modes.Count != 2)
         {
-            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --modes: shrink takes the two modes of the finding");
+            context.Error.WriteLine(GateMessages.Usage("--modes: shrink takes the two modes of the finding"));
             return ExitCodes.BadInput;
         }
         if (seconds is < 1)
         {
-            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": --seconds must be 1 or more");
+            context.Error.WriteLine(GateMessages.Usage("--seconds must be 1 or more"));
             return ExitCodes.BadInput;
         }
         var errors = new List<string>();
@@ -51,7 +50,7 @@ public static class ShrinkCommand
         if (errors.Count > 0) return ExitCodes.BadInput;
         if (files.Count != 1)
         {
-            context.Error.WriteLine("parity: error " + ErrorCodes.Usage + ": shrink takes one script, not a folder");
+            context.Error.WriteLine(GateMessages.Usage("shrink takes one script, not a folder"));
             return ExitCodes.BadInput;
         }
         var scriptPath = files[0];
@@ -60,12 +59,9 @@ public static class ShrinkCommand
         var result = Shrinker.Run(new ShrinkRequest
         {
             ScriptPath = scriptPath,
-            WorkingDirectory = context.WorkingDirectory,
             FindingKey = key,
-            Modes = modes,
             OutDirectory = outFull,
-            RunOptions = runOptions,
-            Diff = DiffOptions.Default with { FloatTolerance = tolerance },
+            Options = options,
             TimeLimit = TimeSpan.FromSeconds(seconds ?? 60),
             Progress = context.Interactive ? progress.Show : null,
         });

@@ -1,6 +1,7 @@
 using Parity.Engine.Modes;
 using Parity.Harness.Diffing;
 using Parity.Harness.Fixtures;
+using Parity.Harness.Gate;
 using Parity.Harness.Shrinking;
 using Parity.Script.Parsing;
 using Parity.Script.Running;
@@ -187,11 +188,9 @@ public sealed class ShrinkerTests : IDisposable
         var result = Shrinker.Run(new ShrinkRequest
         {
             ScriptPath = Path.Combine(data, "trips.parity"),
-            WorkingDirectory = _dir,
             FindingKey = Key,
-            Modes = [Mode.Legacy, Mode.Modern],
             OutDirectory = Path.Combine(_dir, "harbor-out"),
-            RunOptions = RunOptions.Default with { Root = _dir },
+            Options = new GateOptions { WorkingDirectory = _dir },
             TimeLimit = TimeSpan.FromSeconds(600),
         });
         Assert.Equal(Key, result.Finding.Key);
@@ -214,11 +213,9 @@ public sealed class ShrinkerTests : IDisposable
     private ShrinkRequest Request(string key, string outName) => new()
     {
         ScriptPath = Path.Combine(_dir, "ferry", "case.parity"),
-        WorkingDirectory = _dir,
         FindingKey = key,
-        Modes = [Mode.Legacy, Mode.Modern],
         OutDirectory = Path.Combine(_dir, outName),
-        RunOptions = RunOptions.Default with { Root = _dir },
+        Options = new GateOptions { WorkingDirectory = _dir },
     };
 
     /// <summary>Runs the reduced script from its files, under the original's name so keys compare.</summary>
