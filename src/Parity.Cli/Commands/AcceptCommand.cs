@@ -1,6 +1,4 @@
 using System.CommandLine;
-using System.Globalization;
-using Parity.Harness.Formatting;
 using Parity.Harness.Gate;
 
 namespace Parity.Cli.Commands;
@@ -33,18 +31,9 @@ public static class AcceptCommand
             var result = new GateSession(options).Accept(p.GetValue(scripts) ?? [], p.GetValue(checkpoint));
             GateCommandOptions.WriteProblems(context, result.Problems);
             foreach (var s in result.Scripts)
-                context.Out.WriteLine(Line(s));
+                context.Out.WriteLine(s.Describe());
             return result.HasBadInput ? ExitCodes.BadInput : ExitCodes.Passed;
         });
         return command;
     }
-
-    /// <summary><c>accepted SCRIPT: N checkpoints in M modes, K findings -> golden/FOLDER</c>.</summary>
-    internal static string Line(AcceptedScript s) =>
-        "accepted " + CellText.Safe(s.Script)
-        + (s.Checkpoint is null ? "" : " checkpoint " + CellText.Quote(s.Checkpoint))
-        + ": " + Count(s.Checkpoints, "checkpoint") + " in " + Count(s.Modes, "mode") + ", " + Count(s.Findings, "finding")
-        + " -> " + s.Folder;
-
-    private static string Count(int n, string noun) => n.ToString(CultureInfo.InvariantCulture) + " " + noun + (n == 1 ? "" : "s");
 }
