@@ -51,12 +51,13 @@ public sealed class EngineException : Exception
     /// <summary>The canonical text form: <c>file:row:col: error CODE: message</c> (parts omitted when unknown).</summary>
     public string Format()
     {
-        var where = File ?? "parity";
+        // Names and messages carry text from untrusted files: never a raw control character on a terminal.
+        var where = File is null ? "parity" : Text.ControlEscape.Escape(File);
         if (Row > 0)
         {
             where += ":" + Row.ToString(System.Globalization.CultureInfo.InvariantCulture);
             if (ColumnNumber > 0) where += ":" + ColumnNumber.ToString(System.Globalization.CultureInfo.InvariantCulture);
         }
-        return where + ": error " + Code + ": " + Message;
+        return where + ": error " + Code + ": " + Text.ControlEscape.Escape(Message);
     }
 }

@@ -30,6 +30,7 @@ public static class ErrorCodes
     // Data loading
     public const string FileNotFound = "E-FILE-NOT-FOUND";
     public const string FileRead = "E-FILE-READ";
+    public const string FileWrite = "E-FILE-WRITE";
     public const string FileFormat = "E-FILE-FORMAT";
     public const string CsvQuote = "E-CSV-QUOTE";
     public const string CsvRagged = "E-CSV-RAGGED";

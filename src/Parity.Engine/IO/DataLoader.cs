@@ -1,4 +1,5 @@
 using Parity.Engine.Errors;
+using Parity.Engine.Files;
 using Parity.Engine.Frames;
 using Parity.Engine.IO.Internal;
 using Parity.Engine.Modes;
@@ -59,24 +60,27 @@ public static class DataLoader
             ?? throw LoadThrow.Format(display, options.Format is null
                 ? "unknown file extension: expected .csv, .parquet, .arrow, .arrows, .ipc or .feather (or say: as csv)"
                 : $"unknown format '{options.Format}': expected csv, parquet or arrow");
-        string full;
-        FileInfo info;
+        using var opened = SafeFile.OpenRead(path, new FileReadRules
+        {
+            Display = display,
+            Root = options.Root,
+            OutsideHint = "pass --root DIR to widen the root or --allow-outside-root to allow it",
+        });
+        var full = opened.RealPath;
+        DateTime written;
         try
         {
-            full = Path.GetFullPath(path);
-            info = new FileInfo(full);
+            written = File.GetLastWriteTimeUtc(opened.Handle);
         }
-        catch (Exception ex) when (ex is ArgumentException or NotSupportedException or PathTooLongException or UnauthorizedAccessException or IOException)
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
             throw LoadThrow.FileRead(display, ex.Message);
         }
-        if (!info.Exists)
-            throw Directory.Exists(full) ? LoadThrow.FileRead(display, "it is a directory") : LoadThrow.FileNotFound(display);
         var key = string.Join('\u001f', full, format, options.Delimiter.ToString(),
             options.MissingTokens is null ? "\u0000" : string.Join('\u001e', options.MissingTokens),
-            info.Length.ToString(System.Globalization.CultureInfo.InvariantCulture),
-            info.LastWriteTimeUtc.Ticks.ToString(System.Globalization.CultureInfo.InvariantCulture));
-        var keep = options.KeepParsed || info.Length < options.AlwaysKeepBelowBytes;
+            opened.Length.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            written.Ticks.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        var keep = options.KeepParsed || opened.Length < options.AlwaysKeepBelowBytes;
         lock (Gate)
         {
             for (var node = Cache.First; node is not null; node = node.Next)
@@ -87,11 +91,12 @@ public static class DataLoader
                 return node.Value.Source;
             }
         }
+        // The readers reopen the very file the checked handle holds, never the path again.
         var source = format switch
         {
-            "csv" => CsvSourceReader.Read(full, display, options),
-            "parquet" => ParquetSourceReader.Read(full, display),
-            _ => ArrowSourceReader.Read(full, display),
+            "csv" => CsvSourceReader.Read(opened.ReopenPath, display, options),
+            "parquet" => ParquetSourceReader.Read(opened.ReopenPath, display),
+            _ => ArrowSourceReader.Read(opened.ReopenPath, opened.Length, display),
         };
         if (!keep) return source;
         lock (Gate)

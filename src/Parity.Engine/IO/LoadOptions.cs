@@ -30,4 +30,10 @@ public sealed record LoadOptions
 
     /// <summary>Path shown in error messages (as the user wrote it); defaults to the path loaded.</summary>
     public string? DisplayPath { get; init; }
+
+    /// <summary>
+    /// When set, the file's real path (every link resolved, checked again on the opened handle) must lie inside
+    /// this folder, else <c>E-PATH</c> (docs/reliability.md, "Paths").
+    /// </summary>
+    public string? Root { get; init; }
 }

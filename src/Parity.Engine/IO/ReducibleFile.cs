@@ -46,12 +46,14 @@ public sealed class ReducibleFile
     {
         var display = options.DisplayPath ?? path;
         var format = DataLoader.FormatOf(path, options) ?? throw LoadThrow.Format(display, "unknown file extension: expected .csv, .parquet, .arrow, .arrows, .ipc or .feather (or say: as csv)");
-        var full = Path.GetFullPath(path);
+        // Through the file-access layer, as every load: a regular file, read through the checked handle.
+        using var opened = Files.SafeFile.OpenRead(path, new Files.FileReadRules { Display = display, Root = options.Root });
+        var full = opened.ReopenPath;
         return format switch
         {
             "csv" => new ReducibleFile(format, CsvTextTable.Read(full, display, options.Delimiter), null, options.Delimiter),
             "parquet" => new ReducibleFile(format, null, ParquetSourceReader.Read(full, display), options.Delimiter),
-            _ => new ReducibleFile(format, null, ArrowSourceReader.Read(full, display), options.Delimiter),
+            _ => new ReducibleFile(format, null, ArrowSourceReader.Read(full, opened.Length, display), options.Delimiter),
         };
     }
 

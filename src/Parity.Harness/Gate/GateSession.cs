@@ -96,9 +96,17 @@ public sealed class GateSession
     {
         var path = Path.GetFullPath(script, Options.WorkingDirectory);
         if (!File.Exists(path))
-            return new ShowResult(label, mode.Name, null, [script + ": error " + Engine.Errors.ErrorCodes.FileNotFound + ": no such script"]);
+            return new ShowResult(label, mode.Name, null, [Engine.Text.ControlEscape.Escape(script) + ": error " + Engine.Errors.ErrorCodes.FileNotFound + ": no such script"]);
         var shown = ScriptFiles.Relative(path, Options.WorkingDirectory);
-        var text = File.ReadAllText(path);
+        string text;
+        try
+        {
+            text = ScriptSource.Read(path, shown);
+        }
+        catch (ScriptException e)
+        {
+            return new ShowResult(label, mode.Name, null, [e.Diagnostic.Format()]);
+        }
         return CheckpointShow.Run(text, shown, label, mode, Path.GetDirectoryName(path) ?? Options.WorkingDirectory, Options.RunOptions);
     }
 
@@ -160,8 +168,21 @@ public sealed class GateSession
         };
     }
 
-    private ScriptOutcome RunScript(string fullPath, IReadOnlyList<Mode> modes) =>
-        RunParsed(File.ReadAllText(fullPath), ScriptFiles.Relative(fullPath, Options.WorkingDirectory), Path.GetDirectoryName(fullPath) ?? Options.WorkingDirectory, modes);
+    private ScriptOutcome RunScript(string fullPath, IReadOnlyList<Mode> modes)
+    {
+        var shown = ScriptFiles.Relative(fullPath, Options.WorkingDirectory);
+        string text;
+        try
+        {
+            // Through the file-access layer: a regular file, at most 16 MiB, strict UTF-8 (E-UTF8 located).
+            text = ScriptSource.Read(fullPath, shown);
+        }
+        catch (ScriptException e)
+        {
+            return new ScriptOutcome { Script = shown, ParseErrors = [e.Diagnostic] };
+        }
+        return RunParsed(text, shown, Path.GetDirectoryName(fullPath) ?? Options.WorkingDirectory, modes);
+    }
 
     private ScriptOutcome RunParsed(string text, string shown, string directory, IReadOnlyList<Mode> modes)
     {

@@ -1,4 +1,5 @@
 using Parity.Engine.Errors;
+using Parity.Engine.Files;
 
 namespace Parity.Harness.Golden;
 
@@ -20,6 +21,13 @@ public sealed class GoldenLock : IDisposable
     {
         Directory.CreateDirectory(root);
         var path = Path.Combine(root, GoldenNames.LockFile);
+        // The lock file is ours: a link or anything but a regular file in its place (a committed FIFO would
+        // block the open) is removed first.
+        if (SafeFile.IsLink(path) || (Path.Exists(path) && !SafeFile.IsRegularFile(path)))
+        {
+            try { File.Delete(path); }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
+        }
         try
         {
             var fs = new FileStream(path, FileMode.OpenOrCreate, FileAccess.ReadWrite, FileShare.None);

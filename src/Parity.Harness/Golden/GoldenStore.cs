@@ -1,6 +1,7 @@
 using Parity.Harness.Storage;
 using System.Text;
 using Parity.Engine.Errors;
+using Parity.Engine.Files;
 using Parity.Engine.Modes;
 using Parity.Harness.Findings;
 using Parity.Harness.Formatting;
@@ -75,7 +76,7 @@ public sealed class GoldenStore
         using var _ = GoldenLock.Acquire(Root, DisplayRoot);
         var dir = ScriptFolder(script);
         Recover(dir);
-        var files = checkpoint is null ? new SortedDictionary<string, byte[]>(StringComparer.Ordinal) : ReadAll(dir);
+        var files = checkpoint is null ? new SortedDictionary<string, byte[]>(StringComparer.Ordinal) : ReadAll(dir, script);
         if (checkpoint is not null)
         {
             var reached = false;
@@ -140,24 +141,64 @@ public sealed class GoldenStore
         return i;
     }
 
-    private static SortedDictionary<string, byte[]> ReadAll(string dir)
+    /// <summary>
+    /// The files of a script folder, kept by an accept of one checkpoint. A symbolic link is refused: carrying
+    /// it over would copy whatever it names (a key file, <c>/proc/self/environ</c>) into a regular golden file.
+    /// </summary>
+    private SortedDictionary<string, byte[]> ReadAll(string dir, string script)
     {
         var files = new SortedDictionary<string, byte[]>(StringComparer.Ordinal);
+        if (SafeFile.IsLink(dir))
+            throw new EngineException(ErrorCodes.Golden, "the script's golden folder is a symbolic link; golden folders are never links: delete it and run `parity accept` again", Display(script, ""), 0, 0);
         if (!Directory.Exists(dir)) return files;
-        foreach (var path in Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories))
-        {
-            var rel = Path.GetRelativePath(dir, path).Replace('\\', '/');
-            if (Path.GetFileName(rel).StartsWith('.')) continue; // temporary files of a cut-short write
-            files[rel] = File.ReadAllBytes(path);
-        }
+        ReadTree(dir, "", files, script);
         return files;
+    }
+
+    private void ReadTree(string dir, string prefix, SortedDictionary<string, byte[]> files, string script)
+    {
+        foreach (var entry in new DirectoryInfo(dir).GetFileSystemInfos())
+        {
+            var rel = prefix + entry.Name;
+            if (entry.Name.StartsWith('.')) continue; // temporary files of a cut-short write
+            if (entry.LinkTarget is not null)
+                throw new EngineException(ErrorCodes.Golden, "a symbolic link in the golden store; golden files are regular files: delete it and run `parity accept` again", Display(script, rel), 0, 0);
+            if (entry is DirectoryInfo) ReadTree(entry.FullName, rel + "/", files, script);
+            else files[rel] = SafeFile.ReadAllBytes(entry.FullName, Rules(Display(script, rel), MaxArrowBytes));
+        }
+    }
+
+    /// <summary>The largest golden text file read (frames above the row limit keep their data in Arrow files).</summary>
+    public const long MaxTextBytes = 256L << 20;
+
+    /// <summary>The largest golden Arrow data file read.</summary>
+    public const long MaxArrowBytes = (2L << 30) - 64;
+
+    private FileReadRules Rules(string display, long maxBytes) => new()
+    {
+        Display = display,
+        Root = Root,
+        RootDisplay = DisplayRoot,
+        OutsideHint = "golden files are read only from inside the golden store",
+        MaxBytes = maxBytes,
+        SizeCode = ErrorCodes.Golden,
+        SizeHint = "golden files are capped; see docs/reliability.md",
+    };
+
+    private string ReadText(string path, string display) => Utf8.GetString(SafeFile.ReadAllBytes(path, Rules(display, MaxTextBytes)));
+
+    /// <summary>Deletes a folder, or only the link when it is a symbolic link (never what it points to).</summary>
+    private static void RemoveTree(string path)
+    {
+        if (SafeFile.IsLink(path)) File.Delete(path);
+        else if (Directory.Exists(path)) Directory.Delete(path, recursive: true);
     }
 
     private void Swap(string dir, SortedDictionary<string, byte[]> files)
     {
         var fresh = dir + NewSuffix;
         var old = dir + OldSuffix;
-        if (Directory.Exists(fresh)) Directory.Delete(fresh, recursive: true);
+        RemoveTree(fresh);
         Directory.CreateDirectory(fresh);
         foreach (var (rel, bytes) in files)
         {
@@ -165,10 +206,36 @@ public sealed class GoldenStore
             AtomicFile.WriteAllBytes(path, bytes);
             AfterStagedFile?.Invoke(path);
         }
-        if (Directory.Exists(dir)) Directory.Move(dir, old);
+        // A link in place of the folder is replaced, never written through.
+        if (SafeFile.IsLink(dir)) File.Delete(dir);
+        else if (Directory.Exists(dir)) Directory.Move(dir, old);
         BetweenRenames?.Invoke();
         Directory.Move(fresh, dir);
-        if (Directory.Exists(old)) Directory.Delete(old, recursive: true);
+        // The new snapshot is live: failing to clear the old one away is no failure of the accept.
+        // Read-only entries are made writable first; what still resists is removed by the next accept.
+        try
+        {
+            RemoveTree(old);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            MakeWritable(old);
+            try { RemoveTree(old); }
+            catch (Exception again) when (again is IOException or UnauthorizedAccessException) { }
+        }
+    }
+
+    private static void MakeWritable(string path)
+    {
+        if (OperatingSystem.IsWindows() || !Directory.Exists(path) || SafeFile.IsLink(path)) return;
+        try
+        {
+            var info = new DirectoryInfo(path);
+            info.UnixFileMode |= UnixFileMode.UserRead | UnixFileMode.UserWrite | UnixFileMode.UserExecute;
+            foreach (var sub in info.GetDirectories())
+                MakeWritable(sub.FullName);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { }
     }
 
     /// <summary>Finishes or rolls back a swap cut short by a killed accept (called under the lock).</summary>
@@ -177,8 +244,8 @@ public sealed class GoldenStore
         var old = dir + OldSuffix;
         var fresh = dir + NewSuffix;
         if (!Directory.Exists(dir) && Directory.Exists(old)) Directory.Move(old, dir);
-        if (Directory.Exists(old)) Directory.Delete(old, recursive: true);
-        if (Directory.Exists(fresh)) Directory.Delete(fresh, recursive: true);
+        RemoveTree(old);
+        RemoveTree(fresh);
     }
 
     // ---- compare ----------------------------------------------------------------------------------
@@ -190,7 +257,7 @@ public sealed class GoldenStore
         if (dir is null) return null;
         var path = Path.Combine(dir, GoldenNames.FindingsFile);
         if (!File.Exists(path)) return null;
-        return GoldenFindingsText.Read(File.ReadAllText(path, Utf8), Display(script, GoldenNames.FindingsFile)).Findings;
+        return GoldenFindingsText.Read(ReadText(path, Display(script, GoldenNames.FindingsFile)), Display(script, GoldenNames.FindingsFile)).Findings;
     }
 
     /// <summary>
@@ -221,7 +288,7 @@ public sealed class GoldenStore
                 result.Add(new GoldenMismatch(script, null, mode, "no golden run file " + Display(script, runRel) + "; run `parity accept`", ""));
             else
             {
-                var stored = Normalize(File.ReadAllText(runPath, Utf8));
+                var stored = Normalize(ReadText(runPath, Display(script, runRel)));
                 if (!string.Equals(stored, expectedRun, StringComparison.Ordinal))
                 {
                     GoldenRunText.Read(stored, Display(script, runRel));
@@ -242,7 +309,7 @@ public sealed class GoldenStore
                 }
                 var arrowName = GoldenNames.ArrowFile(c.Label);
                 var expected = GoldenFrameText.Write(c.Label, mode, c.Table, RowLimit, arrowName);
-                var storedText = Normalize(File.ReadAllText(path, Utf8));
+                var storedText = Normalize(ReadText(path, Display(script, rel)));
                 if (!string.Equals(storedText, expected, StringComparison.Ordinal))
                 {
                     GoldenFrameText.Read(storedText, Display(script, rel));
@@ -259,7 +326,7 @@ public sealed class GoldenStore
             foreach (var path in extra)
             {
                 var rel = mode + "/" + Path.GetFileName(path);
-                var frame = GoldenFrameText.Read(Normalize(File.ReadAllText(path, Utf8)), Display(script, rel));
+                var frame = GoldenFrameText.Read(Normalize(ReadText(path, Display(script, rel))), Display(script, rel));
                 result.Add(new GoldenMismatch(script, frame.Label, mode, "the golden store has a snapshot of checkpoint " + CellText.Quote(frame.Label) + " that this run did not reach", ""));
             }
         }
@@ -273,7 +340,7 @@ public sealed class GoldenStore
         var path = Path.Combine(modeDir, arrowName);
         if (!File.Exists(path)) throw new EngineException(ErrorCodes.Golden, "the Arrow data file is missing", display, 0, 0);
         var frame = GoldenFrameText.Read(storedText, frameDisplay);
-        var table = GoldenArrow.Read(File.ReadAllBytes(path), m, display);
+        var table = GoldenArrow.Read(SafeFile.ReadAllBytes(path, Rules(display, MaxArrowBytes)), m, display);
         if (!string.Equals(GoldenFrameText.ContentHash(table), frame.Sha256, StringComparison.Ordinal))
             throw new EngineException(ErrorCodes.Golden, "the Arrow data does not match the sha256 in its frame file", display, 0, 0);
     }

@@ -32,7 +32,7 @@ public static class Shrinker
         var time = request.Time;
         var start = time.GetTimestamp();
         var shown = ScriptFiles.Relative(request.ScriptPath, request.WorkingDirectory);
-        var text = File.ReadAllText(request.ScriptPath);
+        var text = ScriptSource.Read(request.ScriptPath, shown);
         var parsed = ScriptParser.Parse(text, shown);
         foreach (var d in parsed.Diagnostics)
             if (d.Severity == Severity.Error) throw new ScriptException(d);

@@ -1,3 +1,5 @@
+using Parity.Engine.Files;
+
 namespace Parity.Harness.Storage;
 
 /// <summary>
@@ -7,27 +9,8 @@ namespace Parity.Harness.Storage;
 /// </summary>
 public static class AtomicFile
 {
-    public static void Write(string path, Action<Stream> write)
-    {
-        var full = Path.GetFullPath(path);
-        var dir = Path.GetDirectoryName(full) ?? ".";
-        Directory.CreateDirectory(dir);
-        var temp = Path.Combine(dir, "." + Path.GetFileName(full) + "." + Guid.NewGuid().ToString("N") + ".tmp");
-        try
-        {
-            using (var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 1 << 16))
-            {
-                write(stream);
-                stream.Flush(flushToDisk: true);
-            }
-            File.Move(temp, full, overwrite: true);
-        }
-        catch
-        {
-            TryDelete(temp);
-            throw;
-        }
-    }
+    /// <summary>Writes through <see cref="SafeFile.WriteAtomic"/>: never through a link; a failure is <c>E-FILE-WRITE</c>.</summary>
+    public static void Write(string path, Action<Stream> write) => SafeFile.WriteAtomic(path, write);
 
     public static void WriteAllBytes(string path, ReadOnlySpan<byte> bytes)
     {
@@ -37,11 +20,4 @@ public static class AtomicFile
 
     public static void WriteAllText(string path, string text) =>
         Write(path, stream => stream.Write(new System.Text.UTF8Encoding(false).GetBytes(text)));
-
-    private static void TryDelete(string path)
-    {
-        try { File.Delete(path); }
-        catch (IOException) { }
-        catch (UnauthorizedAccessException) { }
-    }
 }

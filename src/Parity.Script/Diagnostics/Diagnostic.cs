@@ -1,4 +1,5 @@
 using System.Globalization;
+using Parity.Engine.Text;
 
 namespace Parity.Script.Diagnostics;
 
@@ -7,8 +8,8 @@ public sealed record Diagnostic(string Code, string Message, string File, Source
 {
     /// <summary><c>file:line:col: error CODE: message</c>, positions 1-based.</summary>
     public string Format() =>
-        File + ":" + Span.LineNumber.ToString(CultureInfo.InvariantCulture) + ":" + Span.ColumnNumber.ToString(CultureInfo.InvariantCulture)
-        + ": " + (Severity == Severity.Error ? "error" : "warning") + " " + Code + ": " + Message;
+        ControlEscape.Escape(File) + ":" + Span.LineNumber.ToString(CultureInfo.InvariantCulture) + ":" + Span.ColumnNumber.ToString(CultureInfo.InvariantCulture)
+        + ": " + (Severity == Severity.Error ? "error" : "warning") + " " + Code + ": " + ControlEscape.Escape(Message);
 
     public override string ToString() => Format();
 }

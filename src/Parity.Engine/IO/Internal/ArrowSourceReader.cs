@@ -18,20 +18,9 @@ internal static class ArrowSourceReader
 {
     private static readonly byte[] Magic = "ARROW1"u8.ToArray();
 
-    public static SourceTable Read(string path, string display)
+    /// <summary>Reads <paramref name="path"/> (the loader's reopen path of a checked, opened file) of <paramref name="length"/> bytes.</summary>
+    public static SourceTable Read(string path, long length, string display)
     {
-        long length;
-        try
-        {
-            var info = new FileInfo(path);
-            if (!info.Exists)
-                throw Directory.Exists(path) ? LoadThrow.FileRead(display, "it is a directory") : LoadThrow.FileNotFound(display);
-            length = info.Length;
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            throw LoadThrow.FileRead(display, ex.Message);
-        }
         if (length == 0) throw LoadThrow.Error(ErrorCodes.ArrowIpc, display, "the file is empty: not Arrow IPC");
         if (length > int.MaxValue) return ReadStreamed(path, display);
         MappedMemory mapped;

@@ -1,5 +1,6 @@
 using System.Globalization;
 using Parity.Engine.Errors;
+using Parity.Engine.Files;
 using Parity.Engine.Frames;
 using Parity.Engine.IO;
 using Parity.Engine.Modes;
@@ -122,7 +123,7 @@ internal sealed partial class ScriptRun
     private void Load(LoadStatement load)
     {
         var full = ResolvePath(load);
-        var options = new LoadOptions { DisplayPath = load.Path, Format = load.Format?.Name.ToLowerInvariant(), KeepParsed = _options.KeepParsedSources };
+        var options = new LoadOptions { DisplayPath = load.Path, Root = _options.AllowOutsideRoot ? null : RootFolder(), Format = load.Format?.Name.ToLowerInvariant(), KeepParsed = _options.KeepParsedSources };
         foreach (var o in load.Options)
         {
             switch (o.Key.Name.ToLowerInvariant())
@@ -168,27 +169,40 @@ internal sealed partial class ScriptRun
         string full;
         try
         {
-            full = Path.GetFullPath(Path.Combine(_directory, load.Path));
+            if (load.Path.Contains('\0', StringComparison.Ordinal)) throw new ArgumentException("the path holds a NUL character");
+            // Combined, not folded: "link/../x" must be resolved physically (docs/reliability.md, "Paths").
+            full = Path.Combine(_directory, load.Path);
+            if (!Path.IsPathFullyQualified(full)) full = Path.Combine(Directory.GetCurrentDirectory(), full);
         }
         catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
         {
             throw Error(ErrorCodes.FileRead, $"'{load.Path}' is not a valid path: {e.Message}", load.PathSpan);
         }
+        string real;
+        try
+        {
+            real = PhysicalPath.Resolve(full);
+        }
+        catch (EngineException e)
+        {
+            throw Error(e.Code, $"path '{load.Path}': {e.Message}", load.PathSpan);
+        }
+        // The path as written goes to the loader (its extension names the format); the loader resolves it again
+        // and checks the opened handle against the root.
         if (_options.AllowOutsideRoot) return full;
         var root = Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
-        // Symbolic links count where they lead: compare the final paths of both.
-        var real = RealPath.Resolve(full);
-        var realRoot = RealPath.Resolve(Path.TrimEndingDirectorySeparator(root));
-        var rootWithSep = Path.EndsInDirectorySeparator(realRoot) ? realRoot : realRoot + Path.DirectorySeparatorChar;
-        var comparison = OperatingSystem.IsWindows() ? StringComparison.OrdinalIgnoreCase : StringComparison.Ordinal;
-        if (!real.StartsWith(rootWithSep, comparison) && !string.Equals(real, realRoot, comparison))
+        var realRoot = PhysicalPath.Resolve(Path.TrimEndingDirectorySeparator(root));
+        if (!PhysicalPath.IsInside(real, realRoot))
         {
-            var via = string.Equals(real, full, comparison) ? "" : $" (through a symbolic link to '{real}')";
-            throw Error(ErrorCodes.PathOutsideRoot, $"path '{load.Path}' resolves to '{full}'{via}, outside the project root '{root}'; "
+            var lexical = Path.GetFullPath(full);
+            var via = string.Equals(real, lexical, StringComparison.Ordinal) ? "" : $" (through a symbolic link to '{real}')";
+            throw Error(ErrorCodes.PathOutsideRoot, $"path '{load.Path}' resolves to '{lexical}'{via}, outside the project root '{root}'; "
                 + "pass --root DIR to widen the root or --allow-outside-root to allow it", load.PathSpan);
         }
         return full;
     }
+
+    private string RootFolder() => Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
 
     private void Let(LetStatement let)
     {

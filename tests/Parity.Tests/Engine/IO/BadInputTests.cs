@@ -72,11 +72,12 @@ public sealed class BadInputTests : IDisposable
     public void Missing_file(string name) => Assert.Equal(ErrorCodes.FileNotFound, Fails(_files.PathOf(name)).Code);
 
     [Fact]
-    public void A_directory_is_unreadable()
+    public void A_directory_is_refused_as_not_a_regular_file()
     {
+        // docs/reliability.md, "Paths": only regular files are opened; anything else is E-PATH.
         var dir = Path.Combine(_files.Dir, "d.csv");
         Directory.CreateDirectory(dir);
-        Assert.Equal(ErrorCodes.FileRead, Fails(dir).Code);
+        Assert.Equal(ErrorCodes.PathOutsideRoot, Fails(dir).Code);
     }
 
     [Fact]
