@@ -13,11 +13,12 @@ public static class AcceptCommand
         var checkpoint = new Option<string>("--checkpoint") { Description = "Refresh only this checkpoint (its frames in every mode and its findings)." };
         var modes = GateCommandOptions.Modes();
         var tolerance = GateCommandOptions.FloatTolerance();
+        var relative = GateCommandOptions.FloatRelativeTolerance();
         var rowLimit = GateCommandOptions.RowLimit();
         var limits = new RunLimitOptions();
         var command = new Command("accept", "Write or refresh the golden snapshots and accept the current cross-mode findings.")
         {
-            scripts, golden, checkpoint, modes, tolerance, rowLimit,
+            scripts, golden, checkpoint, modes, tolerance, relative, rowLimit,
         };
         limits.AddTo(command);
         command.SetAction(p =>
@@ -26,6 +27,7 @@ public static class AcceptCommand
             options = GateCommandOptions.WithGolden(options, p.GetValue(golden));
             if (!GateCommandOptions.TryModes(context, p.GetValue(modes), ref options)
                 || !GateCommandOptions.TryTolerance(context, p.GetValue(tolerance), ref options)
+                || !GateCommandOptions.TryRelativeTolerance(context, p.GetValue(relative), ref options)
                 || !GateCommandOptions.TryRowLimit(context, p.GetValue(rowLimit), ref options))
                 return ExitCodes.BadInput;
             var result = new GateSession(options).Accept(p.GetValue(scripts) ?? [], p.GetValue(checkpoint));

@@ -16,9 +16,12 @@ internal static class GateCommand
         var outDir = GateCommandOptions.Out();
         var format = GateCommandOptions.Format();
         var tolerance = GateCommandOptions.FloatTolerance();
+        var relative = GateCommandOptions.FloatRelativeTolerance();
         var rowLimit = GateCommandOptions.RowLimit();
+        var showAccepted = GateCommandOptions.ShowAccepted();
+        var maxDiffRows = GateCommandOptions.MaxDiffRows();
         var limits = new RunLimitOptions();
-        var command = new Command(name, description) { scripts, modes, golden, outDir, format, tolerance, rowLimit };
+        var command = new Command(name, description) { scripts, modes, golden, outDir, format, tolerance, relative, rowLimit, showAccepted, maxDiffRows };
         limits.AddTo(command);
         command.SetAction(p =>
         {
@@ -26,21 +29,23 @@ internal static class GateCommand
             options = GateCommandOptions.WithGolden(options, p.GetValue(golden));
             if (!GateCommandOptions.TryModes(context, p.GetValue(modes), ref options)
                 || !GateCommandOptions.TryTolerance(context, p.GetValue(tolerance), ref options)
+                || !GateCommandOptions.TryRelativeTolerance(context, p.GetValue(relative), ref options)
                 || !GateCommandOptions.TryRowLimit(context, p.GetValue(rowLimit), ref options)
-                || !GateCommandOptions.TryWriters(context, p.GetValue(outDir), p.GetValue(format), out var writers))
+                || !GateCommandOptions.TryTerminal(context, p.GetValue(showAccepted), p.GetValue(maxDiffRows), out var terminal)
+                || !GateCommandOptions.TryWriters(context, p.GetValue(outDir), p.GetValue(format), terminal.MaxDiffRows, out var writers))
                 return ExitCodes.BadInput;
-            return Execute(context, new GateSession(options) { Progress = Progress(context) }, p.GetValue(scripts) ?? [], compareSnapshots, p.GetValue(outDir), writers);
+            return Execute(context, new GateSession(options) { Progress = Progress(context) }, p.GetValue(scripts) ?? [], compareSnapshots, p.GetValue(outDir), writers, terminal);
         });
         return command;
     }
 
     /// <summary>Runs the gate and prints and writes its report; returns the exit code of spec §4.</summary>
-    private static int Execute(CliContext context, GateSession session, string[] scripts, bool compareSnapshots, string? outDir, IReadOnlyList<IReportWriter> writers)
+    private static int Execute(CliContext context, GateSession session, string[] scripts, bool compareSnapshots, string? outDir, IReadOnlyList<IReportWriter> writers, TerminalOptions terminal)
     {
         var result = compareSnapshots ? session.Check(scripts) : session.Run(scripts);
         GateCommandOptions.WriteProblems(context, result.Problems);
         // When nothing could run, the located errors on stderr are the whole story; "passed: 0 scripts" would mislead.
-        if (result.Report.Scripts.Count > 0 || !result.HasBadInput) TerminalSummary.Write(result.Report, context.Out, context.Interactive);
+        if (result.Report.Scripts.Count > 0 || !result.HasBadInput) TerminalSummary.Write(result.Report, context.Out, context.Interactive, terminal);
         if (outDir is not null)
         {
             var dir = Path.GetFullPath(outDir, context.WorkingDirectory);

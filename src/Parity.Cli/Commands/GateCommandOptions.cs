@@ -26,6 +26,12 @@ internal static class GateCommandOptions
 
     public static Option<string> FloatTolerance() => new("--float-tolerance") { Description = "Largest absolute difference under which two numbers count as equal (default 0: exact)." };
 
+    public static Option<string> FloatRelativeTolerance() => new("--float-relative-tolerance") { Description = "Largest difference relative to the larger magnitude under which two numbers count as equal (default 0: exact)." };
+
+    public static Option<bool> ShowAccepted() => new("--show-accepted") { Description = "List accepted findings one line each (default: one count line per script)." };
+
+    public static Option<int?> MaxDiffRows() => new("--max-diff-rows") { Description = "Most rows listed per golden mismatch in the terminal, Markdown and HTML (default 20); counts are always exact." };
+
     public static Option<int?> RowLimit() => new("--row-limit") { Description = "Frames with more rows keep a summary and hash in text and the data in an Arrow IPC file (default 1000)." };
 
     /// <summary>Reads <c>--modes</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
@@ -54,6 +60,28 @@ internal static class GateCommandOptions
         return false;
     }
 
+    /// <summary>Reads <c>--float-relative-tolerance</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
+    public static bool TryRelativeTolerance(CliContext context, string? text, ref GateOptions options)
+    {
+        if (text is null) return true;
+        if (double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var tolerance) && double.IsFinite(tolerance) && tolerance >= 0)
+        {
+            options = options with { Diff = options.Diff with { RelativeTolerance = tolerance } };
+            return true;
+        }
+        context.Error.WriteLine(GateMessages.Usage("--float-relative-tolerance: '" + CellText.Safe(text) + "' is not a number of 0 or more"));
+        return false;
+    }
+
+    /// <summary>Reads <c>--show-accepted</c> and <c>--max-diff-rows</c>; false after a usage message on stderr.</summary>
+    public static bool TryTerminal(CliContext context, bool showAccepted, int? maxDiffRows, out TerminalOptions terminal)
+    {
+        terminal = new TerminalOptions { ShowAccepted = showAccepted, MaxDiffRows = maxDiffRows ?? GoldenDiffText.DefaultMaxRows };
+        if (terminal.MaxDiffRows >= 0) return true;
+        context.Error.WriteLine(GateMessages.Usage("--max-diff-rows must be 0 or more"));
+        return false;
+    }
+
     /// <summary>Reads <c>--row-limit</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
     public static bool TryRowLimit(CliContext context, int? value, ref GateOptions options)
     {
@@ -70,7 +98,10 @@ internal static class GateCommandOptions
     /// <summary>Reads <c>--golden</c> into <paramref name="options"/>.</summary>
     public static GateOptions WithGolden(GateOptions options, string? golden) => golden is null ? options : options with { Golden = golden };
 
-    public static bool TryWriters(CliContext context, string? outDir, string? formats, out IReadOnlyList<IReportWriter> writers)
+    public static bool TryWriters(CliContext context, string? outDir, string? formats, out IReadOnlyList<IReportWriter> writers) =>
+        TryWriters(context, outDir, formats, GoldenDiffText.DefaultMaxRows, out writers);
+
+    public static bool TryWriters(CliContext context, string? outDir, string? formats, int maxDiffRows, out IReadOnlyList<IReportWriter> writers)
     {
         writers = [];
         if (outDir is null)
@@ -81,7 +112,7 @@ internal static class GateCommandOptions
         }
         try
         {
-            writers = ReportWriters.Create([formats ?? string.Join(",", ReportWriters.Formats)]);
+            writers = ReportWriters.Create([formats ?? string.Join(",", ReportWriters.Formats)], maxDiffRows);
             return true;
         }
         catch (ArgumentException ex)

@@ -27,6 +27,7 @@ public static class MigrationHints
     public const string CastError = "the column has missing values, which have no int64 form under nan: `fill c with ...` or `drop missing c` before the cast";
     public const string TypeWriteError = "arrow storage keeps a column to one type: write text(x) into a string column, or `cast` the column first";
     public const string MaskError = "the string predicate gives a missing value under boxed+nan: write `x is not null and contains(x, ...)`";
+    public const string MaskBoolError = "the condition column has missing values, so under boxed+nan it is object and cannot select rows: write `c is not null and c`, or `fill c with false` first";
     public const string AggTypeError = "sum of a string column only works under boxed: aggregate with count or first, or concatenate explicitly";
     public const string OtherError = "the statement fails in one mode only: fix it so it runs in every mode, then run again";
     public const string Checkpoint = "a checkpoint was reached in one mode only: see the error finding of the mode that stopped";

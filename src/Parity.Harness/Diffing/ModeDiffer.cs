@@ -7,6 +7,7 @@ using Parity.Harness.Diffing.Internal;
 using Parity.Harness.Findings;
 using Parity.Harness.Formatting;
 using Parity.Script.Running;
+using Parity.Script.Syntax;
 
 namespace Parity.Harness.Diffing;
 
@@ -30,27 +31,39 @@ public static class ModeDiffer
     /// <summary>Most rows searched for the samples of a type finding.</summary>
     private const int TypeSampleScan = 10_000;
 
-    /// <summary>Diffs the first run (the baseline) against every other run; findings in a deterministic order.</summary>
+    /// <summary>
+    /// Diffs the run nearest legacy (the baseline, <see cref="ModeOrder"/>) against every other run, whatever
+    /// order the runs come in; findings in a deterministic order.
+    /// </summary>
     public static IReadOnlyList<Finding> CompareAll(IReadOnlyList<ModeRun> runs, string script, DiffOptions options)
     {
+        var sorted = new List<ModeRun>(runs);
+        sorted.Sort((x, y) => ModeOrder.Compare(x.Mode, y.Mode));
         var all = new List<Finding>();
-        for (var i = 1; i < runs.Count; i++)
-            all.AddRange(Compare(runs[0], runs[i], script, options));
+        for (var i = 1; i < sorted.Count; i++)
+            all.AddRange(Compare(sorted[0], sorted[i], script, options));
         all.Sort(FindingOrder.Instance);
         return all;
     }
 
+    /// <summary>
+    /// Diffs two runs. The pair is canonical: the mode nearer legacy is always the first side, so swapping the
+    /// arguments gives the same findings. Differences that recur at later checkpoints are one finding with
+    /// <see cref="Finding.AlsoAt"/>, and value and missing differences after a write whose aliasing sets differ
+    /// carry <see cref="Finding.CausedBy"/> (<see cref="RootCauses"/>).
+    /// </summary>
     public static IReadOnlyList<Finding> Compare(ModeRun a, ModeRun b, string script, DiffOptions options)
     {
+        if (ModeOrder.Compare(a.Mode, b.Mode) > 0) (a, b) = (b, a);
         var ctx = new Context(a, b, options);
         CompareStatements(ctx);
         CompareCheckpoints(ctx);
         var modes = new[] { a.Mode.Name, b.Mode.Name };
         var list = new List<Finding>(ctx.Groups.Count);
         foreach (var g in ctx.Groups.Values)
-            list.Add(g.ToFinding(script, modes, countReasons: g.Kind == FindingKind.Missing));
+            list.Add(g.ToFinding(script, modes, countReasons: g.Kind == FindingKind.Missing, g.Checkpoint is null ? ctx.Keys.KeyAt(g.Line) : null));
         list.Sort(FindingOrder.Instance);
-        return list;
+        return RootCauses.Group(list, ctx.AliasWrites);
     }
 
     private sealed class Context
@@ -66,7 +79,14 @@ public static class ModeDiffer
             var la = a.Failure is null ? int.MaxValue : a.Failure.Span.LineNumber;
             var lb = b.Failure is null ? int.MaxValue : b.Failure.Span.LineNumber;
             StopLine = Math.Min(la, lb);
+            Keys = new StatementKeys(a.Statements.Count > 0 ? a.Statements : b.Statements);
         }
+
+        /// <summary>Statement keys of the script (both runs ran the same statements).</summary>
+        public StatementKeys Keys { get; }
+
+        /// <summary>Writes whose aliasing sets differ: their line and the column they write.</summary>
+        public List<(int Line, string Column)> AliasWrites { get; } = [];
 
         public ModeRun A { get; }
 
@@ -124,17 +144,17 @@ public static class ModeDiffer
         var reason = f.Code + " in " + failed.Mode.Name + " only: " + CellText.Safe(f.Message)
             + (missed.Count == 0 ? "" : "; checkpoints " + failed.Mode.Name + " never reached: " + string.Join(", ", missed));
         var g = ctx.Group(FindingKind.Error, f.Span.LineNumber, null, null);
-        g.Add(reason, 1, ErrorHint(f.Code), 0);
+        g.Add(reason, 1, ErrorHint(f.Code, ctx.Keys.StatementAt(f.Span.LineNumber)), 0, f.Code + " in " + failed.Mode.Name + " only");
         var failedText = "error " + f.Code + ": " + CellText.Safe(f.Message);
         var otherText = "ran on";
         g.Sample(null, failed == ctx.A ? [failedText, otherText] : [otherText, failedText]);
     }
 
-    private static string ErrorHint(string code) => code switch
+    private static string ErrorHint(string code, Statement? statement) => code switch
     {
         ErrorCodes.Cast => MigrationHints.CastError,
         ErrorCodes.TypeWrite or ErrorCodes.Type => MigrationHints.TypeWriteError,
-        ErrorCodes.MaskMissing => MigrationHints.MaskError,
+        ErrorCodes.MaskMissing => ConditionHints.MaskMissing(statement),
         ErrorCodes.AggType => MigrationHints.AggTypeError,
         _ => MigrationHints.OtherError,
     };
@@ -151,13 +171,16 @@ public static class ModeDiffer
             var sb = Sorted(wb.ChangedFrames);
             if (SameSet(sa, sb)) continue;
             ctx.FirstAliasLine = Math.Min(ctx.FirstAliasLine, wa.Line);
+            if (ctx.Keys.StatementAt(wa.Line) is SetStatement set && !ctx.AliasWrites.Contains((wa.Line, set.Column.Name)))
+                ctx.AliasWrites.Add((wa.Line, set.Column.Name));
             foreach (var n in sa) if (!sb.Contains(n)) ctx.AliasedFrames.Add(n);
             foreach (var n in sb) if (!sa.Contains(n)) ctx.AliasedFrames.Add(n);
             var chained = wa.Target.StartsWith('(') || HasWarning(ctx.A, wa.Line, ErrorCodes.ChainedWrite) || HasWarning(ctx.B, wa.Line, ErrorCodes.ChainedWrite);
             var maybeCopy = HasWarning(ctx.A, wa.Line, ErrorCodes.MaybeCopy) || HasWarning(ctx.B, wa.Line, ErrorCodes.MaybeCopy);
             var hint = chained ? MigrationHints.ChainedWrite : maybeCopy ? MigrationHints.MaybeCopy : MigrationHints.ViewWrite;
             var g = ctx.Group(FindingKind.Alias, wa.Line, null, null);
-            g.Add("the write to " + CellText.Safe(wa.Target) + " changed " + SetText(sa) + " in " + ctx.NameA + " and " + SetText(sb) + " in " + ctx.NameB, 1, hint, 0);
+            var changed = "changed " + SetText(sa) + " in " + ctx.NameA + " and " + SetText(sb) + " in " + ctx.NameB;
+            g.Add("the write to " + CellText.Safe(wa.Target) + " " + changed, 1, hint, 0, changed);
             g.Sample(null, SetText(sa), SetText(sb));
         }
     }
@@ -186,7 +209,7 @@ public static class ModeDiffer
                 _ => MigrationHints.Warning,
             };
             var g = ctx.Group(FindingKind.Warning, w.Line, null, null);
-            g.Add(w.Code + " in " + has.Mode.Name + " only: " + CellText.Safe(w.Message), 1, hint, 0);
+            g.Add(w.Code + " in " + has.Mode.Name + " only: " + CellText.Safe(w.Message), 1, hint, 0, w.Code + " in " + has.Mode.Name + " only");
             var hasText = w.Code + "; reached " + SetText(Sorted(w.ReachedFrames));
             var otherWrite = FindWrite(lacks, w.Line);
             var lacksText = "no warning" + (otherWrite is null ? "" : "; reached " + SetText(Sorted(otherWrite.ChangedFrames)));
@@ -217,7 +240,7 @@ public static class ModeDiffer
                 : "rows counted by note " + CellText.Safe(kind);
             var hint = kind == RunNote.MissingGroupKey ? MigrationHints.MissingGroupKey : MigrationHints.NullCondition;
             var g = ctx.Group(FindingKind.Missing, line, null, null);
-            g.Add(what + ": " + Num(ca) + " in " + ctx.NameA + ", " + Num(cb) + " in " + ctx.NameB, Math.Abs(ca - cb), hint, kind == RunNote.NullCondition ? 1 : 0);
+            g.Add(what + ": " + Num(ca) + " in " + ctx.NameA + ", " + Num(cb) + " in " + ctx.NameB, Math.Abs(ca - cb), hint, kind == RunNote.NullCondition ? 1 : 0, what);
             g.Sample(null, Num(ca) + " rows", Num(cb) + " rows");
         }
     }
@@ -244,7 +267,8 @@ public static class ModeDiffer
     private static void OnlyIn(Context ctx, CheckpointResult c, string has, string lacks)
     {
         var g = ctx.Group(FindingKind.Shape, c.Line, c.Label, null);
-        g.Add("checkpoint reached in " + has + " but not in " + lacks, 1, MigrationHints.Checkpoint, 0);
+        var text = "checkpoint reached in " + has + " but not in " + lacks;
+        g.Add(text, 1, MigrationHints.Checkpoint, 0, text);
     }
 
     private static void CompareTables(Context ctx, CheckpointResult ca, CheckpointResult cb)
@@ -259,20 +283,20 @@ public static class ModeDiffer
         {
             if (tb.IndexOf(n) >= 0) { commonA.Add(n); continue; }
             var g = ctx.Group(FindingKind.Shape, line, label, n);
-            g.Add("column only in " + ctx.NameA, 1, MigrationHints.ColumnSet, 0);
+            g.Add("column only in " + ctx.NameA, 1, MigrationHints.ColumnSet, 0, "column only in " + ctx.NameA);
         }
         var commonB = new List<string>();
         foreach (var n in tb.Names)
         {
             if (ta.IndexOf(n) >= 0) { commonB.Add(n); continue; }
             var g = ctx.Group(FindingKind.Shape, line, label, n);
-            g.Add("column only in " + ctx.NameB, 1, MigrationHints.ColumnSet, 0);
+            g.Add("column only in " + ctx.NameB, 1, MigrationHints.ColumnSet, 0, "column only in " + ctx.NameB);
         }
         for (var i = 0; i < commonA.Count; i++)
         {
             if (string.Equals(commonA[i], commonB[i], StringComparison.Ordinal)) continue;
             var g = ctx.Group(FindingKind.Shape, line, label, commonA[i]);
-            g.Add("column at position " + Num(ta.IndexOf(commonA[i]) + 1) + " in " + ctx.NameA + " and " + Num(tb.IndexOf(commonA[i]) + 1) + " in " + ctx.NameB, 1, MigrationHints.ColumnOrder, 0);
+            g.Add("column at position " + Num(ta.IndexOf(commonA[i]) + 1) + " in " + ctx.NameA + " and " + Num(tb.IndexOf(commonA[i]) + 1) + " in " + ctx.NameB, 1, MigrationHints.ColumnOrder, 0, "column order");
         }
 
         // Type labels per shared column.
@@ -282,7 +306,8 @@ public static class ModeDiffer
             var colB = tb[n];
             if (string.Equals(colA.TypeLabel, colB.TypeLabel, StringComparison.Ordinal)) continue;
             var g = ctx.Group(FindingKind.Type, line, label, n);
-            g.Add("type " + colA.TypeLabel + " in " + ctx.NameA + ", " + colB.TypeLabel + " in " + ctx.NameB, 1, TypeHint(colA, colB), 0);
+            var typeText = "type " + colA.TypeLabel + " in " + ctx.NameA + ", " + colB.TypeLabel + " in " + ctx.NameB;
+            g.Add(typeText, 1, TypeHint(colA, colB), 0, typeText);
             // Samples show how the representation differs (34.0 against 34); the search is bounded because a
             // storage-only difference (object against utf8) displays the same in every row.
             var rows = Math.Min(Math.Min(ta.RowCount, tb.RowCount), TypeSampleScan);
@@ -316,7 +341,7 @@ public static class ModeDiffer
         {
             foreach (var n in common)
             {
-                var d = Classify(ta[n].GetValue(r), tb[n].GetValue(r), ctx.Options.FloatTolerance);
+                var d = Classify(ta[n].GetValue(r), tb[n].GetValue(r), ctx.Options.ToleranceFor(n));
                 if (d is CellDiff.Same or CellDiff.MarkerKind) continue;
                 first = r;
                 break;
@@ -325,7 +350,7 @@ public static class ModeDiffer
         var g = ctx.Group(FindingKind.Shape, ca.Line, ca.Label, null);
         var reason = "rows: " + Num(ta.RowCount) + " in " + ctx.NameA + ", " + Num(tb.RowCount) + " in " + ctx.NameB
             + "; the first " + Num(first) + " rows agree";
-        g.Add(reason, Math.Abs((long)ta.RowCount - tb.RowCount), MigrationHints.RowCount, 0);
+        g.Add(reason, Math.Abs((long)ta.RowCount - tb.RowCount), MigrationHints.RowCount, 0, "row count");
         for (var r = first; r < Math.Max(ta.RowCount, tb.RowCount) && g.WantsSample; r++)
             g.Sample(r, RowText(ta, common, r), RowText(tb, common, r));
     }
@@ -360,7 +385,7 @@ public static class ModeDiffer
         ValueVersusMissing,
     }
 
-    private static CellDiff Classify(Value a, Value b, double tolerance)
+    private static CellDiff Classify(Value a, Value b, FloatTolerance tolerance)
     {
         if (a.IsMissing && b.IsMissing) return a.Missing == b.Missing ? CellDiff.Same : CellDiff.MarkerKind;
         if (a.IsMissing || b.IsMissing)
@@ -374,15 +399,12 @@ public static class ModeDiffer
         return a.Equals(b) ? CellDiff.Same : CellDiff.Value;
     }
 
-    private static bool NumbersEqual(Value a, Value b, double tolerance)
+    private static bool NumbersEqual(Value a, Value b, FloatTolerance tolerance)
     {
         if (a.Kind == ValueKind.Int64 && b.Kind == ValueKind.Int64) return a.Int64 == b.Int64;
-        if (a.Kind == ValueKind.Int64 && tolerance == 0) return LongEqualsDouble(a.Int64, b.Float64);
-        if (b.Kind == ValueKind.Int64 && tolerance == 0) return LongEqualsDouble(b.Int64, a.Float64);
-        double x = a.AsDouble, y = b.AsDouble;
-        if (double.IsNaN(x) || double.IsNaN(y)) return double.IsNaN(x) && double.IsNaN(y);
-        if (x == y) return true;
-        return tolerance > 0 && double.IsFinite(x) && double.IsFinite(y) && Math.Abs(x - y) <= tolerance;
+        if (a.Kind == ValueKind.Int64 && tolerance.IsExact) return LongEqualsDouble(a.Int64, b.Float64);
+        if (b.Kind == ValueKind.Int64 && tolerance.IsExact) return LongEqualsDouble(b.Int64, a.Float64);
+        return tolerance.Equal(a.AsDouble, b.AsDouble);
     }
 
     /// <summary>Exact comparison: a double equals a long only when it is that integer (no rounding of the long).</summary>
@@ -393,11 +415,11 @@ public static class ModeDiffer
     {
         FindingGroup? values = null;
         FindingGroup? missing = null;
-        var tolerance = ctx.Options.FloatTolerance;
+        var tolerance = ctx.Options.ToleranceFor(name);
         var anyFloat = ca.Type == ColumnType.Float64 || cb.Type == ColumnType.Float64;
         // The typed pass skips rows that are certainly equal; a tolerance needs every numeric row, so it looks at all.
         var candidates = new List<int>();
-        if (tolerance > 0 || ctx.Options.GenericOnly)
+        if (!tolerance.IsExact || ctx.Options.GenericOnly)
             for (var r = 0; r < rows; r++) candidates.Add(r);
         else
             CellScan.Candidates(ca, cb, rows, candidates);
@@ -415,7 +437,7 @@ public static class ModeDiffer
                 var numeric = anyFloat && a.IsNumber && b.IsNumber;
                 var labels = IsTypeLabel(a) && IsTypeLabel(b);
                 var hint = aliased ? MigrationHints.AliasValue : labels ? MigrationHints.TypeLabelValue : numeric ? MigrationHints.FloatValue : MigrationHints.OtherValue;
-                values.Add(tolerance > 0 ? "values differ (beyond the float tolerance)" : "values differ", 1, hint, aliased ? 3 : labels ? 2 : numeric ? 1 : 0);
+                values.Add(tolerance.IsExact ? "values differ" : "values differ (beyond the float tolerance)", 1, hint, aliased ? 3 : labels ? 2 : numeric ? 1 : 0, "values differ");
                 if (values.WantsSample) values.Sample(r, CellText.Display(a), CellText.Display(b));
                 continue;
             }
@@ -426,7 +448,7 @@ public static class ModeDiffer
                 reason = MissingReason(ctx, d, a, b);
                 reasons.Add(key, reason);
             }
-            missing.Add(reason.Text, 1, reason.Hint, reason.Rank);
+            missing.Add(reason.Text, 1, reason.Hint, reason.Rank, reason.Text);
             if (missing.WantsSample) missing.Sample(r, CellText.Display(a), CellText.Display(b));
         }
     }

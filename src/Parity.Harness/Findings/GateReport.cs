@@ -4,7 +4,7 @@ namespace Parity.Harness.Findings;
 public sealed record GateReport
 {
     /// <summary>Version of the JSON report format.</summary>
-    public const int FormatVersion = 1;
+    public const int FormatVersion = 2;
 
     /// <summary><c>run</c> or <c>check</c>.</summary>
     public required string Command { get; init; }

@@ -186,6 +186,8 @@ public sealed class GateSession
 
     private ScriptOutcome RunParsed(string text, string shown, string directory, IReadOnlyList<Mode> modes)
     {
+        // Canonical order whatever --modes says, so a swapped list gives the same runs and reports (docs/workflow.md).
+        modes = ModeOrder.Canonical(modes);
         var parsed = ScriptParser.Parse(text, shown);
         if (parsed.HasErrors)
         {

@@ -19,4 +19,10 @@ public sealed record GoldenRun
     public required IReadOnlyList<RunNote> Notes { get; init; }
 
     public GoldenFailure? Failure { get; init; }
+
+    /// <summary>The statement records, each keyed by its statement (docs/golden-format.md, "Run files").</summary>
+    public IReadOnlyList<GoldenRecord> Records { get; init; } = [];
+
+    /// <summary>The file's format version (1: records named by line only).</summary>
+    public int Version { get; init; } = GoldenRunText.CurrentVersion;
 }

@@ -104,8 +104,23 @@ public sealed class GoldenStore
         var accepted = new List<AcceptedFinding>();
         if (checkpoint is not null && files.TryGetValue(GoldenNames.FindingsFile, out var existing))
         {
-            foreach (var a in GoldenFindingsText.Read(Utf8.GetString(existing), Display(script, GoldenNames.FindingsFile)).Findings)
-                if (!string.Equals(a.Checkpoint, checkpoint, StringComparison.Ordinal)) accepted.Add(a);
+            var kept = GoldenFindingsText.Read(Utf8.GetString(existing), Display(script, GoldenNames.FindingsFile)).Findings;
+            if (kept.Count > 0 && kept[0].Version == 1)
+            {
+                // A version 1 file cannot be written back as it is (it has no statement keys or differences):
+                // the current findings it accepted stand in for its entries, with the counts accepted then.
+                foreach (var f in ApplyAccepted(findings, kept, script))
+                {
+                    if (f.Status is not (FindingStatus.Accepted or FindingStatus.Changed)) continue;
+                    if (string.Equals(f.Checkpoint, checkpoint, StringComparison.Ordinal)) continue;
+                    accepted.Add(GoldenFindingsText.FromFinding(f with { Count = f.AcceptedCount ?? f.Count }));
+                }
+            }
+            else
+            {
+                foreach (var a in kept)
+                    if (!string.Equals(a.Checkpoint, checkpoint, StringComparison.Ordinal)) accepted.Add(a);
+            }
         }
         foreach (var f in findings)
         {
@@ -272,28 +287,24 @@ public sealed class GoldenStore
         if (dir is null)
         {
             foreach (var run in runs)
-                result.Add(new GoldenMismatch(script, null, run.Mode.Name, "no golden snapshot at " + DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + "; run `parity accept` to create it", ""));
+                result.Add(new GoldenMismatch(script, null, run.Mode.Name, "no golden snapshot at " + DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + "; run `parity accept` to create it", "") { Kind = GoldenMismatchKinds.MissingGolden });
             return result;
         }
         if (!File.Exists(Path.Combine(dir, GoldenNames.FindingsFile)))
-            result.Add(new GoldenMismatch(script, null, ModesText(runs), "no accepted findings file " + Display(script, GoldenNames.FindingsFile), ""));
+            result.Add(new GoldenMismatch(script, null, ModesText(runs), "no accepted findings file " + Display(script, GoldenNames.FindingsFile), "") { Kind = GoldenMismatchKinds.MissingGolden });
         foreach (var run in runs)
         {
             var mode = run.Mode.Name;
             var modeDir = Path.Combine(dir, mode);
             var runRel = mode + "/" + GoldenNames.RunFile;
             var runPath = Path.Combine(modeDir, GoldenNames.RunFile);
-            var expectedRun = GoldenRunText.Write(run);
             if (!File.Exists(runPath))
-                result.Add(new GoldenMismatch(script, null, mode, "no golden run file " + Display(script, runRel) + "; run `parity accept`", ""));
+                result.Add(new GoldenMismatch(script, null, mode, "no golden run file " + Display(script, runRel) + "; run `parity accept`", "") { Kind = GoldenMismatchKinds.MissingGolden });
             else
             {
-                var stored = Normalize(ReadText(runPath, Display(script, runRel)));
-                if (!string.Equals(stored, expectedRun, StringComparison.Ordinal))
-                {
-                    GoldenRunText.Read(stored, Display(script, runRel));
-                    result.Add(new GoldenMismatch(script, null, mode, "writes, warnings, notes or the error differ from " + Display(script, runRel), Excerpt(stored, expectedRun)));
-                }
+                var stored = GoldenRunText.Read(Normalize(ReadText(runPath, Display(script, runRel))), Display(script, runRel));
+                var records = CompareRecords(script, run, stored, Display(script, runRel));
+                if (records is not null) result.Add(records);
             }
             var expectedFiles = new HashSet<string>(StringComparer.Ordinal);
             foreach (var c in run.Checkpoints)
@@ -304,7 +315,7 @@ public sealed class GoldenStore
                 var path = Path.Combine(modeDir, name);
                 if (!File.Exists(path))
                 {
-                    result.Add(new GoldenMismatch(script, c.Label, mode, "no golden snapshot " + Display(script, rel) + "; run `parity accept`", ""));
+                    result.Add(new GoldenMismatch(script, c.Label, mode, "no golden snapshot " + Display(script, rel) + "; run `parity accept`", "") { Kind = GoldenMismatchKinds.MissingGolden, RowsNow = c.Table.RowCount });
                     continue;
                 }
                 var arrowName = GoldenNames.ArrowFile(c.Label);
@@ -327,10 +338,64 @@ public sealed class GoldenStore
             {
                 var rel = mode + "/" + Path.GetFileName(path);
                 var frame = GoldenFrameText.Read(Normalize(ReadText(path, Display(script, rel))), Display(script, rel));
-                result.Add(new GoldenMismatch(script, frame.Label, mode, "the golden store has a snapshot of checkpoint " + CellText.Quote(frame.Label) + " that this run did not reach", ""));
+                result.Add(new GoldenMismatch(script, frame.Label, mode, "the golden store has a snapshot of checkpoint " + CellText.Quote(frame.Label) + " that this run did not reach", "") { Kind = GoldenMismatchKinds.StaleGolden, RowsGolden = frame.Rows });
             }
         }
         return result;
+    }
+
+    /// <summary>
+    /// The statement records of a run against a golden run file, as records (docs/golden-format.md, "Run
+    /// files"): the checkpoints reached in order, and each write, warning, note and error matched by its
+    /// statement (canonical text and occurrence), never by line. Null when they agree. A version 1 file names
+    /// statements by line: its records are keyed through the current script's lines.
+    /// </summary>
+    private static GoldenMismatch? CompareRecords(string script, ModeRun run, GoldenRun stored, string display)
+    {
+        var keys = new Parity.Script.Syntax.StatementKeys(run.Statements);
+        var golden = new SortedDictionary<string, (string Content, int Line)>(StringComparer.Ordinal);
+        foreach (var r in stored.Records)
+            golden[RecordIdentity(r, r.Statement ?? keys.KeyAt(r.Line))] = (r.Content, r.Line);
+        var now = new SortedDictionary<string, (string Content, int Line)>(StringComparer.Ordinal);
+        foreach (var r in GoldenRunText.Records(run))
+            now[RecordIdentity(r, r.Statement!)] = (r.Content, r.Line);
+        var changes = new List<GoldenChange>();
+        var reached = new List<string>(run.Checkpoints.Count);
+        foreach (var c in run.Checkpoints) reached.Add(c.Label);
+        if (!reached.SequenceEqual(stored.Checkpoints, StringComparer.Ordinal))
+            changes.Add(new GoldenChange(null, null, "checkpoints reached", LabelList(stored.Checkpoints), LabelList(reached)));
+        foreach (var (id, g) in golden)
+        {
+            if (!now.TryGetValue(id, out var n)) changes.Add(new GoldenChange(null, null, id, g.Content, null));
+            else if (!string.Equals(g.Content, n.Content, StringComparison.Ordinal)) changes.Add(new GoldenChange(null, null, id, g.Content, n.Content));
+        }
+        foreach (var (id, n) in now)
+            if (!golden.ContainsKey(id)) changes.Add(new GoldenChange(null, null, id, null, n.Content));
+        if (changes.Count == 0) return null;
+        var excerpt = new StringBuilder();
+        foreach (var c in changes)
+        {
+            excerpt.Append(c.Column).Append('\n');
+            if (c.Golden is not null) excerpt.Append("- ").Append(c.Golden).Append('\n');
+            if (c.Now is not null) excerpt.Append("+ ").Append(c.Now).Append('\n');
+        }
+        return new GoldenMismatch(script, null, run.Mode.Name,
+            "writes, warnings, notes or the error differ from " + display + " (" + changes.Count.ToString(System.Globalization.CultureInfo.InvariantCulture) + (changes.Count == 1 ? " record)" : " records)"),
+            excerpt.ToString())
+        {
+            Kind = GoldenMismatchKinds.Records,
+            Changes = changes,
+        };
+    }
+
+    private static string RecordIdentity(GoldenRecord r, string statement) =>
+        r.Kind + " " + statement + (r.Discriminator.Length == 0 ? "" : " " + r.Discriminator);
+
+    private static string LabelList(IReadOnlyList<string> labels)
+    {
+        var quoted = new string[labels.Count];
+        for (var i = 0; i < quoted.Length; i++) quoted[i] = CellText.Quote(labels[i]);
+        return string.Join(", ", quoted);
     }
 
     private void VerifyArrow(string script, string mode, Mode m, string modeDir, string arrowName, string storedText, string frameDisplay)
@@ -377,6 +442,11 @@ public sealed class GoldenStore
     /// <summary>
     /// Marks each current finding new, accepted or changed against <paramref name="accepted"/> and adds a
     /// resolved finding (count 0) for each accepted one that is gone. Null means no golden store: all new.
+    /// A finding is accepted when its key is accepted with the same total count and the same later checkpoints
+    /// (<see cref="Finding.AlsoAt"/>); it is changed when its key is accepted with another count or footprint,
+    /// or when an accepted group of the same kind, column and difference covered one of its checkpoints.
+    /// Version 1 entries (keyed by line) are matched by kind, checkpoint or line, and column; a group matches
+    /// when every checkpoint it covers was accepted, with the counts summed.
     /// </summary>
     public static IReadOnlyList<Finding> ApplyAccepted(IReadOnlyList<Finding> current, IReadOnlyList<AcceptedFinding>? accepted, string script)
     {
@@ -388,29 +458,45 @@ public sealed class GoldenStore
         }
         var byId = new Dictionary<string, AcceptedFinding>(StringComparer.Ordinal);
         foreach (var a in accepted) byId.TryAdd(a.Identity, a);
-        var matched = new HashSet<string>(StringComparer.Ordinal);
+        var used = new HashSet<string>(StringComparer.Ordinal);
         var result = new List<Finding>(current.Count + accepted.Count);
         foreach (var f in current)
         {
             var id = FindingIdentity.Of(f);
-            if (!byId.TryGetValue(id, out var a))
+            if (byId.TryGetValue(id, out var a) && a.Version != 1 && used.Add(id))
             {
-                result.Add(f with { Status = FindingStatus.New });
+                var same = a.Count == f.Count && SameLabels(a.AlsoAt, f.AlsoAt);
+                result.Add(f with { Status = same ? FindingStatus.Accepted : FindingStatus.Changed, AcceptedCount = a.Count });
                 continue;
             }
-            matched.Add(id);
-            result.Add(f with { Status = a.Count == f.Count ? FindingStatus.Accepted : FindingStatus.Changed, AcceptedCount = a.Count });
+            var moved = FindMovedGroup(f, accepted, used);
+            if (moved is not null)
+            {
+                used.Add(moved.Identity);
+                result.Add(f with { Status = FindingStatus.Changed, AcceptedCount = moved.Count });
+                continue;
+            }
+            var (found, missing, count) = MatchVersion1(f, byId, used);
+            if (found > 0)
+                result.Add(f with { Status = missing == 0 && count == f.Count ? FindingStatus.Accepted : FindingStatus.Changed, AcceptedCount = (int)Math.Min(count, int.MaxValue) });
+            else
+                result.Add(f with { Status = FindingStatus.New });
         }
         foreach (var a in accepted)
         {
-            if (matched.Contains(a.Identity)) continue;
+            if (used.Contains(a.Identity)) continue;
+            used.Add(a.Identity);
             result.Add(new Finding
             {
                 Kind = ParseKind(a.Kind),
                 Script = script,
                 Line = a.Line,
                 Checkpoint = a.Checkpoint,
+                Statement = a.Checkpoint is null ? a.Statement : null,
                 Column = a.Column,
+                Difference = a.Difference,
+                AlsoAt = a.AlsoAt,
+                CausedBy = a.CausedBy,
                 Count = 0,
                 AcceptedCount = a.Count,
                 Status = FindingStatus.Resolved,
@@ -421,6 +507,57 @@ public sealed class GoldenStore
         }
         result.Sort(Diffing.FindingOrder.Instance);
         return result;
+    }
+
+    private static bool SameLabels(IReadOnlyList<string> a, IReadOnlyList<string> b)
+    {
+        if (a.Count != b.Count) return false;
+        for (var i = 0; i < a.Count; i++)
+            if (!string.Equals(a[i], b[i], StringComparison.Ordinal)) return false;
+        return true;
+    }
+
+    /// <summary>An accepted group of the same kind, column, difference and modes that covered one of <paramref name="f"/>'s checkpoints (its first checkpoint moved).</summary>
+    private static AcceptedFinding? FindMovedGroup(Finding f, IReadOnlyList<AcceptedFinding> accepted, HashSet<string> used)
+    {
+        if (f.Checkpoint is null) return null;
+        var mine = new HashSet<string>(f.AlsoAt, StringComparer.Ordinal) { f.Checkpoint };
+        foreach (var a in accepted)
+        {
+            if (a.Version == 1 || a.Checkpoint is null || used.Contains(a.Identity)) continue;
+            if (!string.Equals(a.Kind, f.KindLabel, StringComparison.Ordinal) || !string.Equals(a.Column, f.Column, StringComparison.Ordinal)
+                || !string.Equals(a.Difference, f.Difference, StringComparison.Ordinal) || !SameLabels(a.Modes, f.Modes))
+                continue;
+            if (mine.Contains(a.Checkpoint)) return a;
+            foreach (var l in a.AlsoAt)
+                if (mine.Contains(l)) return a;
+        }
+        return null;
+    }
+
+    /// <summary>Version 1 entries for <paramref name="f"/>: one per checkpoint it covers (or its line); how many were found and missing, and their summed count.</summary>
+    private static (int Found, int Missing, long Count) MatchVersion1(Finding f, Dictionary<string, AcceptedFinding> byId, HashSet<string> used)
+    {
+        var ids = new List<string>();
+        if (f.Checkpoint is null) ids.Add(FindingIdentity.OfVersion1(f.KindLabel, f.Line, null, f.Column, f.Modes));
+        else
+        {
+            ids.Add(FindingIdentity.OfVersion1(f.KindLabel, f.Line, f.Checkpoint, f.Column, f.Modes));
+            foreach (var l in f.AlsoAt) ids.Add(FindingIdentity.OfVersion1(f.KindLabel, 0, l, f.Column, f.Modes));
+        }
+        int found = 0, missing = 0;
+        long count = 0;
+        foreach (var id in ids)
+        {
+            if (byId.TryGetValue(id, out var a) && a.Version == 1 && !used.Contains(id))
+            {
+                used.Add(id);
+                found++;
+                count += a.Count;
+            }
+            else missing++;
+        }
+        return (found, missing, count);
     }
 
     private static FindingKind ParseKind(string label)

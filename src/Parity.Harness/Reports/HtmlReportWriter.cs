@@ -29,6 +29,7 @@ td.n { text-align: right; font-variant-numeric: tabular-nums; }
 dl { display: grid; grid-template-columns: max-content 1fr; gap: .1em 1em; margin: .3em 0; } dt { color: #57606a; } dd { margin: 0; }
 fieldset { border: 1px solid #d0d7de; border-radius: 4px; } label { margin-right: 1em; white-space: nowrap; }
 pre { background: #f6f8fa; padding: .5em; overflow-x: auto; }
+td.changed { background: #fff1c2; font-weight: bold; } td.changed del, td.changed ins { text-decoration-thickness: 2px; }
 """;
 
     private const string Script = """
@@ -64,6 +65,9 @@ pre { background: #f6f8fa; padding: .5em; overflow-x: auto; }
 
     public void Write(GateReport report, string outDir) => AtomicFile.WriteAllText(Path.Combine(outDir, FileName), Render(report));
 
+    /// <summary>Most rows listed per golden mismatch (<c>--max-diff-rows</c>); counts are always exact.</summary>
+    public int MaxDiffRows { get; init; } = GoldenDiffText.DefaultMaxRows;
+
     public string Render(GateReport report)
     {
         var sb = new StringBuilder();
@@ -88,7 +92,7 @@ pre { background: #f6f8fa; padding: .5em; overflow-x: auto; }
             if (script.Findings.Count == 0) sb.Append("<p>No findings.</p>\n");
             foreach (var f in script.Findings)
                 WriteFinding(sb, f);
-            WriteGolden(sb, script);
+            WriteGolden(sb, script, MaxDiffRows);
             WriteCheckpoints(sb, script);
             sb.Append("</section>\n");
         }
@@ -141,7 +145,10 @@ pre { background: #f6f8fa; padding: .5em; overflow-x: auto; }
         Field(sb, "script", H(f.Script));
         Field(sb, "line", ReportFacts.Int(f.Line));
         Field(sb, "checkpoint", f.Checkpoint is null ? "(statement)" : "<span class=\"v\">" + H(f.Checkpoint) + "</span>");
+        if (f.Checkpoint is null && f.Statement is not null) Field(sb, "statement", "<span class=\"v\">" + H(f.Statement) + "</span>");
         Field(sb, "column", f.Column is null ? "(whole frame)" : "<span class=\"v\">" + H(f.Column) + "</span>");
+        if (f.AlsoAt.Count > 0) Field(sb, "also at", H(ReportFacts.AlsoAtText(f)));
+        if (f.CausedBy is not null) Field(sb, "caused by", H(ReportFacts.CauseText(f) + " (" + f.CausedBy + ")"));
         Field(sb, "count", ReportFacts.Int(f.Count) + (f.AcceptedCount is { } a && a != f.Count ? " (accepted: " + ReportFacts.Int(a) + ")" : ""));
         Field(sb, "status", status);
         Field(sb, "message", H(f.Message));
@@ -165,28 +172,81 @@ pre { background: #f6f8fa; padding: .5em; overflow-x: auto; }
         sb.Append("</article>\n");
     }
 
-    private static void WriteGolden(StringBuilder sb, ScriptResult script)
+    /// <summary>
+    /// Golden mismatches: counts, schema change and a table with the golden row above the current row; a changed
+    /// cell is struck through (<c>del</c>) on the golden side and underlined (<c>ins</c>) on the current side,
+    /// with a trailing <c>✱</c>, so the mark does not rest on colour.
+    /// </summary>
+    private static void WriteGolden(StringBuilder sb, ScriptResult script, int maxRows)
     {
         if (script.GoldenMismatches.Count == 0) return;
         sb.Append("<h3>Golden mismatches</h3>\n");
         foreach (var m in script.GoldenMismatches)
         {
             sb.Append("<div class=\"golden\"><p>mode <span class=\"v\">").Append(H(m.Mode)).Append("</span>, ")
-                .Append(m.Checkpoint is null ? "accepted findings" : "checkpoint <span class=\"v\">" + H(m.Checkpoint) + "</span>")
-                .Append(": ").Append(H(m.Message)).Append("</p>\n");
-            if (m.Excerpt.Length > 0)
+                .Append(m.Checkpoint is null ? "statement records" : "checkpoint <span class=\"v\">" + H(m.Checkpoint) + "</span>")
+                .Append(" (").Append(H(m.Kind)).Append("): ").Append(H(GoldenDiffText.Summary(m))).Append("</p>\n");
+            var schema = GoldenDiffText.SchemaLine(m.Schema);
+            if (schema is not null) sb.Append("<p>").Append(H(schema)).Append("</p>\n");
+            if (m.Kind == GoldenMismatchKinds.Records)
             {
-                sb.Append("<pre>");
-                var lines = m.Excerpt.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n');
-                for (var i = 0; i < lines.Length; i++)
-                {
-                    if (i > 0) sb.Append('\n');
-                    sb.Append(H(lines[i]));
-                }
-                sb.Append("</pre>\n");
+                sb.Append("<table class=\"golden-diff\">\n<thead><tr><th>record</th><th>golden</th><th>now</th></tr></thead>\n<tbody>\n");
+                foreach (var c in m.Changes)
+                    sb.Append("<tr><td class=\"v\">").Append(H(c.Column)).Append("</td><td class=\"v changed\"><del>").Append(H(c.Golden ?? "(none)"))
+                        .Append("</del></td><td class=\"v changed\"><ins>").Append(H(c.Now ?? "(none)")).Append("</ins></td></tr>\n");
+                sb.Append("</tbody>\n</table>\n</div>\n");
+                continue;
             }
+            if (m.Rows.Count == 0)
+            {
+                if (m.Excerpt.Length > 0)
+                {
+                    sb.Append("<pre>");
+                    var lines = m.Excerpt.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n');
+                    for (var i = 0; i < lines.Length; i++)
+                    {
+                        if (i > 0) sb.Append('\n');
+                        sb.Append(H(lines[i]));
+                    }
+                    sb.Append("</pre>\n");
+                }
+                sb.Append("</div>\n");
+                continue;
+            }
+            var columns = new List<string>(m.NowColumns);
+            foreach (var g in m.GoldenColumns)
+                if (!columns.Contains(g)) columns.Add(g);
+            sb.Append("<table class=\"golden-diff\">\n<thead><tr><th>side</th><th>row</th>");
+            foreach (var c in columns) sb.Append("<th>").Append(H(c)).Append("</th>");
+            sb.Append("</tr></thead>\n<tbody>\n");
+            var listed = Math.Min(maxRows, m.Rows.Count);
+            for (var i = 0; i < listed; i++)
+            {
+                var r = m.Rows[i];
+                if (r.Golden is not null) Side(sb, r.Now is null ? "golden (removed)" : "golden", r.RowGolden, r.Golden, m.GoldenColumns, columns, r.ChangedColumns, "del");
+                if (r.Now is not null) Side(sb, r.Golden is null ? "now (added)" : "now", r.RowNow, r.Now, m.NowColumns, columns, r.ChangedColumns, "ins");
+            }
+            sb.Append("</tbody>\n</table>\n");
+            var total = m.RowsChanged + m.RowsAdded + m.RowsRemoved;
+            if (total > listed) sb.Append("<p>").Append(ReportFacts.Int(total - listed)).Append(" more rows not listed (--max-diff-rows N lists more; report.json has up to 1,000 changes).</p>\n");
             sb.Append("</div>\n");
         }
+    }
+
+    private static void Side(StringBuilder sb, string side, long? row, IReadOnlyList<string> cells, IReadOnlyList<string> own, List<string> columns, IReadOnlyList<string> changed, string tag)
+    {
+        sb.Append("<tr><td>").Append(side).Append("</td><td class=\"n\">").Append(row is { } r ? ReportFacts.Int(r) : "").Append("</td>");
+        foreach (var c in columns)
+        {
+            var at = -1;
+            for (var k = 0; k < own.Count; k++)
+                if (string.Equals(own[k], c, StringComparison.Ordinal)) { at = k; break; }
+            if (at < 0 || at >= cells.Count) sb.Append("<td>(no column)</td>");
+            else if (GoldenDiffText.Contains(changed, c))
+                sb.Append("<td class=\"v changed\"><").Append(tag).Append('>').Append(H(cells[at])).Append("</").Append(tag).Append("> ✱</td>");
+            else sb.Append("<td class=\"v\">").Append(H(cells[at])).Append("</td>");
+        }
+        sb.Append("</tr>\n");
     }
 
     private static void WriteCheckpoints(StringBuilder sb, ScriptResult script)

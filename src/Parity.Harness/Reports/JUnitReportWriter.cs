@@ -177,9 +177,9 @@ public sealed class JUnitReportWriter : IReportWriter
             if (o is Finding f) AppendFinding(sb, f);
             else if (o is GoldenMismatch m)
             {
-                sb.Append("golden mismatch, mode ").Append(SafeText.Visible(m.Mode)).Append(": ").Append(SafeText.Visible(m.Message)).Append('\n');
-                foreach (var line in m.Excerpt.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n'))
-                    if (line.Length > 0) sb.Append("  ").Append(SafeText.Visible(line)).Append('\n');
+                sb.Append("golden mismatch (").Append(SafeText.Visible(m.Kind)).Append("), mode ").Append(SafeText.Visible(m.Mode)).Append(": ").Append(SafeText.Visible(GoldenDiffText.Summary(m))).Append('\n');
+                foreach (var line in GoldenDiffText.Lines(m, GoldenDiffText.DefaultMaxRows))
+                    sb.Append("  ").Append(SafeText.Visible(line)).Append('\n');
             }
         }
         return sb.ToString();
@@ -192,6 +192,7 @@ public sealed class JUnitReportWriter : IReportWriter
         sb.Append(": ").Append(ReportFacts.Int(f.Count)).Append(f.Count == 1 ? " row" : " rows")
             .Append(" [").Append(ReportFacts.Label(f.Status)).Append("]\n");
         sb.Append("  ").Append(SafeText.Visible(f.Message)).Append('\n');
+        if (f.AlsoAt.Count > 0) sb.Append("  also at ").Append(SafeText.Visible(ReportFacts.AlsoAtText(f))).Append('\n');
         if (f.Hint.Length > 0) sb.Append("  hint: ").Append(SafeText.Visible(f.Hint)).Append('\n');
         foreach (var sample in f.Samples)
         {

@@ -88,18 +88,82 @@ public sealed class JsonReportWriter : IReportWriter
 
         w.WriteStartArray("golden_mismatches");
         foreach (var m in script.GoldenMismatches)
+            WriteMismatch(w, m);
+        w.WriteEndArray();
+        w.WriteEndObject();
+    }
+
+    /// <summary>Most changes listed per golden mismatch; the rest are counted in <c>truncated</c>.</summary>
+    public const int MaxChanges = 1000;
+
+    /// <summary>One entry of <c>golden_mismatches</c> (docs/reports.md): exact counts, the schema change, up to <see cref="MaxChanges"/> changes.</summary>
+    private static void WriteMismatch(Utf8JsonWriter w, GoldenMismatch m)
+    {
+        w.WriteStartObject();
+        w.WriteString("script", S(m.Script));
+        w.WriteString("mode", S(m.Mode));
+        if (m.Checkpoint is null) w.WriteNull("checkpoint");
+        else w.WriteString("checkpoint", S(m.Checkpoint));
+        w.WriteString("kind", S(m.Kind));
+        Number(w, "rows_golden", m.RowsGolden);
+        Number(w, "rows_now", m.RowsNow);
+        w.WriteNumber("rows_added", m.RowsAdded);
+        w.WriteNumber("rows_removed", m.RowsRemoved);
+        w.WriteNumber("rows_changed", m.RowsChanged);
+        w.WriteNumber("cells_changed", m.CellsChanged);
+        w.WriteStartObject("columns");
+        foreach (var (name, n) in m.Columns) w.WriteNumber(S(name), n);
+        w.WriteEndObject();
+        w.WriteStartObject("schema");
+        Strings(w, "added", m.Schema.Added);
+        Strings(w, "removed", m.Schema.Removed);
+        w.WriteStartArray("retyped");
+        foreach (var r in m.Schema.Retyped)
         {
             w.WriteStartObject();
-            w.WriteString("script", S(m.Script));
-            if (m.Checkpoint is null) w.WriteNull("checkpoint");
-            else w.WriteString("checkpoint", S(m.Checkpoint));
-            w.WriteString("mode", S(m.Mode));
-            w.WriteString("message", S(m.Message));
-            w.WriteString("excerpt", S(m.Excerpt));
+            w.WriteString("column", S(r.Column));
+            w.WriteString("golden", S(r.Golden));
+            w.WriteString("now", S(r.Now));
             w.WriteEndObject();
         }
         w.WriteEndArray();
+        Strings(w, "moved", m.Schema.Moved);
         w.WriteEndObject();
+        w.WriteStartArray("changes");
+        var listed = Math.Min(MaxChanges, m.Changes.Count);
+        for (var i = 0; i < listed; i++)
+        {
+            var c = m.Changes[i];
+            w.WriteStartObject();
+            Number(w, "row_golden", c.RowGolden);
+            Number(w, "row_now", c.RowNow);
+            String(w, "column", c.Column);
+            String(w, "golden", c.Golden);
+            String(w, "now", c.Now);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+        w.WriteNumber("truncated", m.Truncated + (m.Changes.Count - listed));
+        w.WriteEndObject();
+    }
+
+    private static void Number(Utf8JsonWriter w, string name, long? value)
+    {
+        if (value is { } v) w.WriteNumber(name, v);
+        else w.WriteNull(name);
+    }
+
+    private static void String(Utf8JsonWriter w, string name, string? value)
+    {
+        if (value is null) w.WriteNull(name);
+        else w.WriteString(name, S(value));
+    }
+
+    private static void Strings(Utf8JsonWriter w, string name, IReadOnlyList<string> values)
+    {
+        w.WriteStartArray(name);
+        foreach (var v in values) w.WriteStringValue(S(v));
+        w.WriteEndArray();
     }
 
     private static void WriteFinding(Utf8JsonWriter w, Finding f)
@@ -110,8 +174,10 @@ public sealed class JsonReportWriter : IReportWriter
         w.WriteNumber("line", f.Line);
         if (f.Checkpoint is null) w.WriteNull("checkpoint");
         else w.WriteString("checkpoint", S(f.Checkpoint));
+        String(w, "statement", f.Checkpoint is null ? f.Statement : null);
         if (f.Column is null) w.WriteNull("column");
         else w.WriteString("column", S(f.Column));
+        w.WriteString("difference", S(f.Difference));
         w.WriteNumber("count", f.Count);
         if (f.AcceptedCount is { } accepted) w.WriteNumber("accepted_count", accepted);
         else w.WriteNull("accepted_count");
@@ -119,6 +185,19 @@ public sealed class JsonReportWriter : IReportWriter
         w.WriteString("message", S(f.Message));
         w.WriteString("hint", S(f.Hint));
         w.WriteString("key", S(f.Key));
+        Strings(w, "also_at", f.AlsoAt);
+        String(w, "caused_by", f.CausedBy);
+        Number(w, "caused_by_line", f.CausedByLine);
+        w.WriteStartArray("occurrences");
+        foreach (var o in f.Occurrences)
+        {
+            w.WriteStartObject();
+            w.WriteString("checkpoint", S(o.Checkpoint));
+            w.WriteNumber("line", o.Line);
+            w.WriteNumber("count", o.Count);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
         w.WriteStartArray("modes");
         foreach (var m in f.Modes) w.WriteStringValue(S(m));
         w.WriteEndArray();

@@ -19,6 +19,9 @@ public sealed class MarkdownReportWriter : IReportWriter
 
     public void Write(GateReport report, string outDir) => AtomicFile.WriteAllText(Path.Combine(outDir, FileName), Render(report));
 
+    /// <summary>Most rows listed per golden mismatch (<c>--max-diff-rows</c>); counts are always exact.</summary>
+    public int MaxDiffRows { get; init; } = GoldenDiffText.DefaultMaxRows;
+
     public string Render(GateReport report)
     {
         var sb = new StringBuilder();
@@ -43,16 +46,72 @@ public sealed class MarkdownReportWriter : IReportWriter
             {
                 sb.Append("\n#### Golden mismatches\n");
                 foreach (var m in script.GoldenMismatches)
-                {
-                    sb.Append("\n- **mode:** ").Append(MarkdownText.Inline(m.Mode))
-                        .Append(", **checkpoint:** ").Append(m.Checkpoint is null ? "(accepted findings)" : MarkdownText.Inline(m.Checkpoint))
-                        .Append(": ").Append(MarkdownText.Inline(m.Message)).Append('\n');
-                    if (m.Excerpt.Length > 0)
-                        sb.Append('\n').Append(MarkdownText.Fenced(m.Excerpt, "diff"));
-                }
+                    WriteMismatch(sb, m, MaxDiffRows);
             }
         }
         return sb.ToString();
+    }
+
+    /// <summary>
+    /// A golden mismatch: the exact counts, the schema change, then a table with the golden row above the
+    /// current row for each listed row; changed cells are bold and marked with a trailing <c>✱</c>, so the mark
+    /// does not rest on colour or emphasis alone.
+    /// </summary>
+    private static void WriteMismatch(StringBuilder sb, GoldenMismatch m, int maxRows)
+    {
+        sb.Append("\n- **mode:** ").Append(MarkdownText.Inline(m.Mode))
+            .Append(", ").Append(m.Checkpoint is null ? "**statement records**" : "**checkpoint:** " + MarkdownText.Inline(m.Checkpoint))
+            .Append(" (").Append(MarkdownText.Inline(m.Kind)).Append("): ").Append(MarkdownText.Inline(GoldenDiffText.Summary(m))).Append('\n');
+        var schema = GoldenDiffText.SchemaLine(m.Schema);
+        if (schema is not null) sb.Append("  ").Append(MarkdownText.Inline(schema)).Append('\n');
+        if (m.Kind == GoldenMismatchKinds.Records)
+        {
+            sb.Append("\n| record | golden | now |\n|---|---|---|\n");
+            foreach (var c in m.Changes)
+                sb.Append("| ").Append(MarkdownText.Inline(c.Column)).Append(" | ").Append(MarkdownText.Inline(c.Golden ?? "(none)"))
+                    .Append(" | ").Append(MarkdownText.Inline(c.Now ?? "(none)")).Append(" |\n");
+            return;
+        }
+        if (m.Rows.Count == 0)
+        {
+            if (m.Excerpt.Length > 0) sb.Append('\n').Append(MarkdownText.Fenced(m.Excerpt, "diff"));
+            return;
+        }
+        var columns = new List<string>(m.NowColumns);
+        foreach (var g in m.GoldenColumns)
+            if (!columns.Contains(g)) columns.Add(g);
+        sb.Append("\n| side | row |");
+        foreach (var c in columns) sb.Append(' ').Append(MarkdownText.Inline(c)).Append(" |");
+        sb.Append("\n|---|---:|");
+        foreach (var _ in columns) sb.Append("---|");
+        sb.Append('\n');
+        var listed = Math.Min(maxRows, m.Rows.Count);
+        for (var i = 0; i < listed; i++)
+        {
+            var r = m.Rows[i];
+            if (r.Golden is not null) Side(sb, r.Now is null ? "golden (removed)" : "golden", r.RowGolden, r.Golden, m.GoldenColumns, columns, r.ChangedColumns);
+            if (r.Now is not null) Side(sb, r.Golden is null ? "now (added)" : "now", r.RowNow, r.Now, m.NowColumns, columns, r.ChangedColumns);
+        }
+        var total = m.RowsChanged + m.RowsAdded + m.RowsRemoved;
+        if (total > listed)
+            sb.Append("\n").Append(ReportFacts.Int(total - listed)).Append(" more rows not listed (`--max-diff-rows N` lists more; `report.json` has up to 1,000 changes).\n");
+    }
+
+    private static void Side(StringBuilder sb, string side, long? row, IReadOnlyList<string> cells, IReadOnlyList<string> own, List<string> columns, IReadOnlyList<string> changed)
+    {
+        sb.Append("| ").Append(side).Append(" | ").Append(row is { } r ? ReportFacts.Int(r) : "").Append(" |");
+        foreach (var c in columns)
+        {
+            var at = -1;
+            for (var k = 0; k < own.Count; k++)
+                if (string.Equals(own[k], c, StringComparison.Ordinal)) { at = k; break; }
+            sb.Append(' ');
+            if (at < 0 || at >= cells.Count) sb.Append("(no column)");
+            else if (GoldenDiffText.Contains(changed, c)) sb.Append("**").Append(MarkdownText.Inline(cells[at])).Append("** ✱");
+            else sb.Append(MarkdownText.Inline(cells[at]));
+            sb.Append(" |");
+        }
+        sb.Append('\n');
     }
 
     private static void WriteSummary(StringBuilder sb, GateReport report)
@@ -87,7 +146,10 @@ public sealed class MarkdownReportWriter : IReportWriter
         sb.Append("- **script:** ").Append(MarkdownText.Inline(f.Script)).Append('\n');
         sb.Append("- **line:** ").Append(ReportFacts.Int(f.Line)).Append('\n');
         sb.Append("- **checkpoint:** ").Append(f.Checkpoint is null ? "(statement)" : MarkdownText.Inline(f.Checkpoint)).Append('\n');
+        if (f.Checkpoint is null && f.Statement is not null) sb.Append("- **statement:** ").Append(MarkdownText.Inline(f.Statement)).Append('\n');
         sb.Append("- **column:** ").Append(f.Column is null ? "(whole frame)" : MarkdownText.Inline(f.Column)).Append('\n');
+        if (f.AlsoAt.Count > 0) sb.Append("- **also at:** ").Append(MarkdownText.Inline(ReportFacts.AlsoAtText(f))).Append('\n');
+        if (f.CausedBy is not null) sb.Append("- **caused by:** ").Append(MarkdownText.Inline(ReportFacts.CauseText(f) + " (" + f.CausedBy + ")")).Append('\n');
         sb.Append("- **count:** ").Append(ReportFacts.Int(f.Count));
         if (f.AcceptedCount is { } accepted && accepted != f.Count)
             sb.Append(" (accepted: ").Append(ReportFacts.Int(accepted)).Append(')');

@@ -11,7 +11,10 @@ public static class ReportWriters
     /// an entry may itself be a comma-separated list. An unknown name throws <see cref="ArgumentException"/>
     /// whose message lists the valid names (the CLI turns it into a usage error).
     /// </summary>
-    public static IReadOnlyList<IReportWriter> Create(IEnumerable<string> formats)
+    public static IReadOnlyList<IReportWriter> Create(IEnumerable<string> formats) => Create(formats, GoldenDiffText.DefaultMaxRows);
+
+    /// <summary>As above; <paramref name="maxDiffRows"/> caps the rows listed per golden mismatch in Markdown and HTML (<c>--max-diff-rows</c>).</summary>
+    public static IReadOnlyList<IReportWriter> Create(IEnumerable<string> formats, int maxDiffRows)
     {
         var writers = new List<IReportWriter>();
         var seen = new HashSet<string>(StringComparer.Ordinal);
@@ -21,19 +24,19 @@ public static class ReportWriters
             {
                 var name = part.ToLowerInvariant();
                 if (!seen.Add(name)) continue;
-                writers.Add(CreateOne(name) ?? throw new ArgumentException(
+                writers.Add(CreateOne(name, maxDiffRows) ?? throw new ArgumentException(
                     "unknown report format '" + Internal.SafeText.Visible(part) + "'; valid: " + string.Join(", ", Formats)));
             }
         }
         return writers;
     }
 
-    private static IReportWriter? CreateOne(string name) => name switch
+    private static IReportWriter? CreateOne(string name, int maxDiffRows) => name switch
     {
-        "md" => new MarkdownReportWriter(),
+        "md" => new MarkdownReportWriter { MaxDiffRows = maxDiffRows },
         "json" => new JsonReportWriter(),
         "junit" => new JUnitReportWriter(),
-        "html" => new HtmlReportWriter(),
+        "html" => new HtmlReportWriter { MaxDiffRows = maxDiffRows },
         _ => null,
     };
 }

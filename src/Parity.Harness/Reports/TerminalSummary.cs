@@ -19,7 +19,14 @@ public static class TerminalSummary
     private const string Bold = "\u001b[1m";
     private const string Reset = "\u001b[0m";
 
-    public static void Write(GateReport report, TextWriter output, bool colour)
+    public static void Write(GateReport report, TextWriter output, bool colour) => Write(report, output, colour, TerminalOptions.Default);
+
+    /// <summary>
+    /// Writes the summary. Accepted findings are one count line per script unless
+    /// <see cref="TerminalOptions.ShowAccepted"/>; golden mismatches list up to
+    /// <see cref="TerminalOptions.MaxDiffRows"/> rows each, changed cells in <c>[brackets]</c>.
+    /// </summary>
+    public static void Write(GateReport report, TextWriter output, bool colour, TerminalOptions options)
     {
         foreach (var script in report.Scripts)
         {
@@ -34,20 +41,22 @@ public static class TerminalSummary
                 sb.Append(", ").Append(ReportFacts.Int(script.GoldenMismatches.Count)).Append(script.GoldenMismatches.Count == 1 ? " golden mismatch" : " golden mismatches");
             output.WriteLine(sb.ToString());
 
+            var folded = new int[ReportFacts.Kinds.Count];
+            var foldedCount = 0;
             foreach (var f in script.Findings)
-                WriteFinding(output, f, colour);
-            foreach (var m in script.GoldenMismatches)
             {
-                sb.Clear();
-                sb.Append("  ");
-                Paint(sb, "golden", Red, colour);
-                sb.Append("   mode ").Append(SafeText.Visible(m.Mode)).Append(", ")
-                    .Append(m.Checkpoint is null ? "accepted findings" : "checkpoint '" + SafeText.Visible(m.Checkpoint) + "'")
-                    .Append(": ").Append(SafeText.Visible(m.Message));
-                output.WriteLine(sb.ToString());
-                foreach (var line in m.Excerpt.Replace("\r\n", "\n", StringComparison.Ordinal).Split('\n'))
-                    if (line.Length > 0) output.WriteLine("      " + SafeText.Visible(line));
+                if (f.Status == FindingStatus.Accepted && !options.ShowAccepted)
+                {
+                    folded[(int)f.Kind]++;
+                    foldedCount++;
+                    continue;
+                }
+                WriteFinding(output, f, colour);
             }
+            if (foldedCount > 0)
+                output.WriteLine("  accepted: " + ReportFacts.Int(foldedCount) + (foldedCount == 1 ? " finding (" : " findings (") + ReportFacts.KindSummary(folded) + "); --show-accepted lists them");
+            foreach (var m in script.GoldenMismatches)
+                WriteMismatch(output, m, colour, options.MaxDiffRows);
         }
         var total = new StringBuilder();
         Paint(total, report.Failed ? "failed" : "passed", report.Failed ? Red + Bold : Green + Bold, colour);
@@ -55,6 +64,18 @@ public static class TerminalSummary
         total.Append(": ").Append(ReportFacts.Int(scripts)).Append(scripts == 1 ? " script" : " scripts")
             .Append(", findings: ").Append(ReportFacts.KindSummary(ReportFacts.CountByKind(report)));
         output.WriteLine(total.ToString());
+    }
+
+    private static void WriteMismatch(TextWriter output, GoldenMismatch m, bool colour, int maxRows)
+    {
+        var sb = new StringBuilder("  ");
+        Paint(sb, "golden", Red, colour);
+        sb.Append("   mode ").Append(SafeText.Visible(m.Mode)).Append(", ")
+            .Append(m.Checkpoint is null ? "statement records" : "checkpoint '" + SafeText.Visible(m.Checkpoint) + "'")
+            .Append(": ").Append(SafeText.Visible(GoldenDiffText.Summary(m)));
+        output.WriteLine(sb.ToString());
+        foreach (var line in GoldenDiffText.Lines(m, maxRows))
+            output.WriteLine("      " + SafeText.Visible(line));
     }
 
     private static void AppendStatusCounts(StringBuilder sb, ScriptResult script)
@@ -86,8 +107,11 @@ public static class TerminalSummary
             FindingStatus.Accepted => Green,
             _ => Dim,
         }, colour);
+        if (f.AlsoAt.Count > 0) sb.Append(" at ").Append(ReportFacts.Int(f.AlsoAt.Count + 1)).Append(" checkpoints");
         sb.Append("  ").Append(SafeText.Visible(f.Message));
         output.WriteLine(sb.ToString());
+        if (f.AlsoAt.Count > 0 && f.Status is FindingStatus.New or FindingStatus.Changed)
+            output.WriteLine("      also at " + SafeText.Visible(ReportFacts.AlsoAtText(f)));
 
         // Accepted and resolved findings stay one line each: a reviewer reads samples for what needs a decision.
         var samples = f.Status is FindingStatus.New or FindingStatus.Changed ? f.Samples : [];

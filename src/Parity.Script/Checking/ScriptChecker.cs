@@ -75,6 +75,9 @@ internal sealed class ScriptChecker
                 break;
             case CheckStatement check:
                 CheckFrame(check.Frame);
+                var keyNames = new HashSet<string>(StringComparer.Ordinal);
+                foreach (var key in check.Keys)
+                    if (!keyNames.Add(key.Name)) Report(ErrorCodes.DupColumn, key.Span, "key column '" + key.Name + "' is named twice");
                 var label = check.EffectiveLabel;
                 if (_labels.TryGetValue(label, out var first))
                 {

@@ -64,11 +64,12 @@ internal sealed partial class Parser
                 continue;
             }
             _definingName = null;
+            var first = _index;
             try
             {
                 var statement = ParseStatement();
                 if (!AtLineEnd) throw Expected("end of line");
-                statements.Add(statement);
+                statements.Add(statement with { Canonical = CanonicalText(first, _index), LastLine = Previous.Line });
             }
             catch (SyntaxFailure failure)
             {
@@ -83,6 +84,30 @@ internal sealed partial class Parser
     }
 
     private bool AtLineEnd => Current.Kind is TokenKind.Newline or TokenKind.EndOfText;
+
+    /// <summary>Tokens <paramref name="from"/> up to <paramref name="to"/> (exclusive) joined by one space, keywords lower-cased.</summary>
+    private string CanonicalText(int from, int to)
+    {
+        // One space between tokens, except around '.', inside brackets, before ',' and between a function
+        // name and its '(' — the way the language reference writes statements (docs/language.md).
+        var sb = new System.Text.StringBuilder();
+        for (var i = from; i < to; i++)
+        {
+            var token = _tokens[i];
+            if (i > from)
+            {
+                var previous = _tokens[i - 1];
+                var tight = token.Kind is TokenKind.Comma or TokenKind.RightParen or TokenKind.RightBracket or TokenKind.Dot
+                    || previous.Kind is TokenKind.LeftParen or TokenKind.LeftBracket or TokenKind.Dot
+                    || (token.Kind == TokenKind.LeftParen && previous.Kind == TokenKind.Word && !Keywords.IsReserved(previous.Text(_text)));
+                if (!tight) sb.Append(' ');
+            }
+            var text = token.Text(_text);
+            if (token.Kind == TokenKind.Word && Keywords.IsReserved(text)) sb.Append(text.ToString().ToLowerInvariant());
+            else sb.Append(text);
+        }
+        return sb.ToString();
+    }
 
     private Statement ParseStatement()
     {
@@ -201,6 +226,13 @@ internal sealed partial class Parser
     {
         var start = Advance();
         var frame = ParseName("a frame name");
+        List<Identifier> keys = [];
+        // 'key' is not reserved: it is recognised here by position only.
+        if (IsKeyword(Current, "key"))
+        {
+            Advance();
+            keys = ParseNameList();
+        }
         string? label = null;
         if (IsKeyword(Current, "as"))
         {
@@ -210,9 +242,9 @@ internal sealed partial class Parser
         }
         else if (!AtLineEnd)
         {
-            throw Expected("'as' or end of line", ["as"]);
+            throw Expected(keys.Count == 0 ? "'key', 'as' or end of line" : "',', 'as' or end of line", keys.Count == 0 ? ["key", "as"] : ["as"]);
         }
-        return new CheckStatement(frame, label, SpanFrom(start));
+        return new CheckStatement(frame, label, SpanFrom(start)) { Keys = keys };
     }
 
     // ---- token helpers ----

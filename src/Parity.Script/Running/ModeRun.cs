@@ -1,5 +1,6 @@
 using Parity.Engine.Modes;
 using Parity.Script.Diagnostics;
+using Parity.Script.Syntax;
 
 namespace Parity.Script.Running;
 
@@ -18,6 +19,9 @@ public sealed class ModeRun
     public Mode Mode { get; }
 
     public string ScriptFile { get; }
+
+    /// <summary>The statements that were run (in every mode the same), so records can be tied to statements rather than lines.</summary>
+    public IReadOnlyList<Statement> Statements { get; init; } = [];
 
     public List<CheckpointResult> Checkpoints { get; } = [];
 

@@ -100,6 +100,7 @@ public static class SyntaxPrinter
                 break;
             case CheckStatement check:
                 sb.Append("check ").Append(Name(check.Frame));
+                for (var i = 0; i < check.Keys.Count; i++) sb.Append(i == 0 ? " key " : ", ").Append(Name(check.Keys[i]));
                 if (check.Label is not null) sb.Append(" as ").Append(FormatString(check.Label));
                 sb.Append('\n');
                 break;

@@ -185,14 +185,37 @@ public sealed class GoldenFormatTests
     {
         var accepted = new List<AcceptedFinding>
         {
-            new("alias", 3, null, null, ["legacy", "modern"], 1, "the write changed {'tickets'}"),
-            new("type", 10, "adults", "age", ["legacy", "modern"], 1, "type float64 in legacy"),
-            new("missing", 10, "adults", "note | x", ["legacy", "boxed+null+cow"], 12, "NaN in legacy"),
+            new("alias", 3, null, null, ["legacy", "modern"], 1, "the write changed {'tickets'}")
+            {
+                Statement = Parity.Script.Syntax.StatementKeys.Format("set (tickets take 3).fare = 0 where note = 'it''s'", 2),
+                Difference = "changed {'tickets'} in legacy and {} in modern",
+            },
+            new("type", 10, "adults", "age", ["legacy", "modern"], 3, "type float64 in legacy") { Difference = "type float64 in legacy, int64 in modern", AlsoAt = ["later", "it's \n odd"] },
+            new("missing", 10, "adults", "note | x", ["legacy", "boxed+null+cow"], 12, "NaN in legacy")
+            {
+                Difference = "a value in legacy where boxed+null+cow has null",
+                CausedBy = "alias|ferry/refunds.parity|statement 'set t.fare = 1' #1|-|changed {} in legacy and {} in modern|legacy,modern",
+            },
         };
         var text = GoldenFindingsText.Write("ferry/refunds.parity", accepted);
         var (script, back) = GoldenFindingsText.Read(text, "findings.txt");
         Assert.Equal("ferry/refunds.parity", script);
-        Assert.Equal(accepted.Select(a => a.Identity + a.Count + a.Message), back.Select(a => a.Identity + a.Count + a.Message));
+        Assert.Equal(accepted.Select(a => a.Identity + a.Count + a.Message + string.Join("/", a.AlsoAt) + a.CausedBy),
+            back.Select(a => a.Identity + a.Count + a.Message + string.Join("/", a.AlsoAt) + a.CausedBy));
+        // Keys carry no line numbers: the same findings at other lines have the same identity.
+        Assert.Equal(accepted.Select(a => a.Identity), accepted.Select(a => (a with { Line = a.Line + 7 }).Identity));
+    }
+
+    [Fact]
+    public void Findings_file_of_version_1_still_loads_with_line_identities()
+    {
+        var text = "# parity golden findings 1\nscript 'ferry/refunds.parity'\n"
+            + "finding alias count 1 modes legacy,modern line 3 checkpoint - column -\n  message 'the write'\n"
+            + "finding type count 1 modes legacy,modern line 10 checkpoint 'adults' column 'age'\n  message 'type float64'\n";
+        var (_, back) = GoldenFindingsText.Read(text, "findings.txt");
+        Assert.Equal(2, back.Count);
+        Assert.All(back, a => Assert.Equal(1, a.Version));
+        Assert.Equal(FindingIdentity.OfVersion1("alias", 3, null, null, ["legacy", "modern"]), back[0].Identity);
     }
 
     public static TheoryData<string, string, string> Corruptions() => new()

@@ -87,7 +87,11 @@ public sealed class JsonReportTests
         }
         var mismatch = root.GetProperty("scripts")[0].GetProperty("golden_mismatches")[0];
         Assert.Equal(JsonValueKind.Null, mismatch.GetProperty("checkpoint").ValueKind);
-        Assert.Contains(ReportFixtures.Control, mismatch.GetProperty("excerpt").GetString(), StringComparison.Ordinal);
+        Assert.Equal("records", mismatch.GetProperty("kind").GetString());
+        Assert.Contains(ReportFixtures.Control, mismatch.GetProperty("changes")[0].GetProperty("now").GetString(), StringComparison.Ordinal);
+        var frame = root.GetProperty("scripts")[0].GetProperty("golden_mismatches")[1];
+        Assert.Equal("'" + ReportFixtures.Control + "'", frame.GetProperty("changes")[0].GetProperty("now").GetString());
+        Assert.Equal(1, frame.GetProperty("columns").GetProperty("note " + ReportFixtures.Pipe).GetInt32());
     }
 
     // RFC 8259 §7: control characters must be escaped inside strings.

@@ -128,7 +128,20 @@ internal static class ReportFixtures
                     GoldenMismatches =
                     [
                         new GoldenMismatch("ferry/hostile.parity", null, "modern", "accepted findings differ " + ScriptInjection,
-                            "- 'a' " + Backticks + "\n+ 'b' " + Control),
+                            "- 'a' " + Backticks + "\n+ 'b' " + Control)
+                        {
+                            Kind = GoldenMismatchKinds.Records,
+                            Changes = [new GoldenChange(null, null, "write 'set t.x = 1' #1 " + Pipe, "'a' " + Backticks, "'b' " + Control)],
+                        },
+                        new GoldenMismatch("ferry/hostile.parity", "notes " + ScriptInjection, "legacy", "the frame differs", "")
+                        {
+                            RowsGolden = 2, RowsNow = 2, RowsChanged = 1, CellsChanged = 1,
+                            Columns = [new KeyValuePair<string, long>("note " + Pipe, 1)],
+                            Changes = [new GoldenChange(1, 1, "note " + Pipe, "'" + ScriptInjection + "'", "'" + Control + "'")],
+                            GoldenColumns = ["id", "note " + Pipe],
+                            NowColumns = ["id", "note " + Pipe],
+                            Rows = [new GoldenRowChange(1, 1, ["2", "'" + ScriptInjection + "'"], ["2", "'" + Control + "'"], ["note " + Pipe])],
+                        },
                     ],
                 },
             ],

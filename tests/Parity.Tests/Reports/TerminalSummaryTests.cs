@@ -4,11 +4,22 @@ namespace Parity.Tests.Reports;
 
 public sealed class TerminalSummaryTests
 {
-    private static string Render(Parity.Harness.Findings.GateReport report, bool colour)
+    private static string Render(Parity.Harness.Findings.GateReport report, bool colour, TerminalOptions? options = null)
     {
         using var w = new StringWriter { NewLine = "\n" };
-        TerminalSummary.Write(report, w, colour);
+        TerminalSummary.Write(report, w, colour, options ?? TerminalOptions.Default);
         return w.ToString();
+    }
+
+    [Fact]
+    public void Golden_mismatch_rows_are_side_by_side_with_changed_cells_in_brackets_and_capped()
+    {
+        var lines = Render(ReportFixtures.Hostile(), colour: false).Split('\n');
+        Assert.Contains(lines, l => l.StartsWith("      golden row 1: 2 | ['", StringComparison.Ordinal));
+        Assert.Contains(lines, l => l.StartsWith("      now    row 1: 2 | ['", StringComparison.Ordinal));
+        var capped = Render(ReportFixtures.Hostile(), colour: false, new TerminalOptions { MaxDiffRows = 0 }).Split('\n');
+        Assert.DoesNotContain(capped, l => l.Contains("golden row 1", StringComparison.Ordinal));
+        Assert.Contains(capped, l => l.Contains("1 more row not listed", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -18,7 +29,10 @@ public sealed class TerminalSummaryTests
         var lines = text.Split('\n');
         Assert.Equal("FAIL  ferry/tickets.parity  2 checkpoints, findings: 1 type, 1 missing, 1 alias (2 new, 1 accepted)", lines[0]);
         Assert.Equal("  type    line 4  checkpoint 'adults'  column 'age'  x1  new  column 'age' is float64 under legacy and int64 under modern", lines[1]);
-        Assert.Contains("  missing line 4  checkpoint 'adults'  column 'age'  x2  accepted  missing ages print NaN under legacy and null under modern", lines);
+        // Accepted findings fold into one count line unless --show-accepted.
+        Assert.Contains("  accepted: 1 finding (1 missing); --show-accepted lists them", lines);
+        var shown = Render(ReportFixtures.Ordinary(), colour: false, new TerminalOptions { ShowAccepted = true }).Split('\n');
+        Assert.Contains("  missing line 4  checkpoint 'adults'  column 'age'  x2  accepted  missing ages print NaN under legacy and null under modern", shown);
         // Samples only for findings that need a decision; the accepted one stays a single line.
         Assert.DoesNotContain("      row 3:  legacy NaN  |  modern null", lines);
         Assert.Contains("      legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);

@@ -10,6 +10,7 @@ namespace Parity.Harness.Diffing.Internal;
 internal sealed class FindingGroup
 {
     private readonly List<(string Reason, long Count)> _reasons = [];
+    private readonly SortedSet<string> _differences = new(StringComparer.Ordinal);
     private readonly List<FindingSample> _samples = [];
     private readonly int _maxSamples;
     private int _hintRank = -1;
@@ -35,10 +36,14 @@ internal sealed class FindingGroup
 
     public string Hint { get; private set; } = "";
 
-    /// <summary>Adds <paramref name="count"/> differences for <paramref name="reason"/>; the highest <paramref name="rank"/> picks the hint.</summary>
-    public void Add(string reason, long count, string hint, int rank)
+    /// <summary>
+    /// Adds <paramref name="count"/> differences for <paramref name="reason"/>; the highest <paramref name="rank"/>
+    /// picks the hint. <paramref name="difference"/> is the reason without counts or rows (part of the key).
+    /// </summary>
+    public void Add(string reason, long count, string hint, int rank, string difference)
     {
         Count += count;
+        _differences.Add(difference);
         var found = false;
         for (var i = 0; i < _reasons.Count; i++)
         {
@@ -62,7 +67,10 @@ internal sealed class FindingGroup
         if (_samples.Count < _maxSamples) _samples.Add(new FindingSample(row, values));
     }
 
-    public Finding ToFinding(string script, IReadOnlyList<string> modes, bool countReasons)
+    /// <summary>The differences seen, sorted ordinally and joined by <c>; </c>.</summary>
+    public string Difference => string.Join("; ", _differences);
+
+    public Finding ToFinding(string script, IReadOnlyList<string> modes, bool countReasons, string? statement)
     {
         var parts = new List<string>(_reasons.Count);
         foreach (var (reason, count) in _reasons)
@@ -73,12 +81,15 @@ internal sealed class FindingGroup
             Script = script,
             Line = Line,
             Checkpoint = Checkpoint,
+            Statement = Checkpoint is null ? statement : null,
             Column = Column,
+            Difference = Difference,
             Count = (int)Math.Min(Count, int.MaxValue),
             Message = string.Join("; ", parts),
             Hint = Hint,
             Modes = modes,
             Samples = _samples.ToArray(),
+            Occurrences = Checkpoint is null ? [] : [new FindingOccurrence(Checkpoint, Line, (int)Math.Min(Count, int.MaxValue))],
         };
     }
 }

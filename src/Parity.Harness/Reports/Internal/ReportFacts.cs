@@ -49,6 +49,21 @@ internal static class ReportFacts
     public static string Where(Finding f) =>
         f.Checkpoint is null ? "line " + Int(f.Line) : "checkpoint '" + f.Checkpoint + "' (line " + Int(f.Line) + ")";
 
+    /// <summary>The later checkpoints of a grouped finding with their counts: <c>'refunds' x2, 'tail' x34</c>.</summary>
+    public static string AlsoAtText(Finding f)
+    {
+        var parts = new List<string>(f.AlsoAt.Count);
+        if (f.Occurrences.Count == f.AlsoAt.Count + 1)
+            for (var i = 1; i < f.Occurrences.Count; i++) parts.Add("'" + f.Occurrences[i].Checkpoint + "' x" + Int(f.Occurrences[i].Count));
+        else
+            foreach (var a in f.AlsoAt) parts.Add("'" + a + "'");
+        return string.Join(", ", parts);
+    }
+
+    /// <summary>"after the write at line 8 (statement 'set t.fare = 0' #1)" for a finding with a cause, else null.</summary>
+    public static string? CauseText(Finding f) =>
+        f.CausedBy is null ? null : "the write at line " + (f.CausedByLine is { } l ? Int(l) : "?");
+
     public static string Int(long n) => n.ToString(CultureInfo.InvariantCulture);
 
     /// <summary>The value of a sample for a mode position; a missing entry is shown as empty.</summary>

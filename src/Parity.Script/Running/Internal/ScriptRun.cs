@@ -32,7 +32,7 @@ internal sealed partial class ScriptRun
         _mode = mode;
         _directory = directory;
         _options = options;
-        _run = new ModeRun(mode, script.File);
+        _run = new ModeRun(mode, script.File) { Statements = script.Statements };
         _lastMentions = FrameLifetimes.LastMentions(script.Statements);
         if (preloaded is not null)
             foreach (var (name, table) in preloaded)
@@ -216,7 +216,16 @@ internal sealed partial class ScriptRun
         var label = check.EffectiveLabel;
         if (!_labels.Add(label))
             throw Error(ErrorCodes.DupCheckpoint, $"two checkpoints are labelled '{label}'", check.Span);
-        _run.Checkpoints.Add(new CheckpointResult(label, named.Name, check.Span.LineNumber, check.Span.ColumnNumber, named.Frame.Snapshot()));
+        var table = named.Frame.Snapshot();
+        var keys = new string[check.Keys.Count];
+        for (var i = 0; i < keys.Length; i++)
+        {
+            var key = check.Keys[i];
+            if (table.IndexOf(key.Name) < 0)
+                throw Error(ErrorCodes.UnknownColumn, $"frame '{named.Name}' has no column '{key.Name}' to use as a key" + NameSuggester.DidYouMean(key.Name, table.Names), key.Span);
+            keys[i] = key.Name;
+        }
+        _run.Checkpoints.Add(new CheckpointResult(label, named.Name, check.Span.LineNumber, check.Span.ColumnNumber, table) { Keys = keys });
     }
 
     private NamedFrame Named(Identifier id)

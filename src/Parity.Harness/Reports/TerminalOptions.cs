@@ -1,0 +1,13 @@
+namespace Parity.Harness.Reports;
+
+/// <summary>How much the terminal summary shows.</summary>
+public sealed record TerminalOptions
+{
+    public static TerminalOptions Default { get; } = new();
+
+    /// <summary>List accepted findings one line each instead of one count line per script (<c>--show-accepted</c>).</summary>
+    public bool ShowAccepted { get; init; }
+
+    /// <summary>Most rows listed per golden mismatch (<c>--max-diff-rows</c>); counts are always exact.</summary>
+    public int MaxDiffRows { get; init; } = GoldenDiffText.DefaultMaxRows;
+}
