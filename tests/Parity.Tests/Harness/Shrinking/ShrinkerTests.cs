@@ -54,17 +54,17 @@ public sealed class ShrinkerTests : IDisposable
     public static TheoryData<string, string, string> Cases => new()
     {
         // Spec §2.2 (writes): a write through a `take` view reaches the parent under alias only.
-        { "view-write", "load t from 't.csv'\nlet v = t take 3\nset v.fare = 0\ncheck t\n", "value|ferry/case.parity|t|fare" },
+        { "view-write", "load t from 't.csv'\nlet v = t take 3\nset v.fare = 0\ncheck t\n", "value|ferry/case.parity|checkpoint 't'|column 'fare'|values differ|legacy,modern" },
         // Spec §2.2: a row whose condition is null is dropped (and counted) under null; false under nan.
-        { "null-condition", "load t from 't.csv'\nlet adults = t where age >= 18\ncheck adults\n", "missing|ferry/case.parity|line 2|" },
+        { "null-condition", "load t from 't.csv'\nlet adults = t where age >= 18\ncheck adults\n", "missing|ferry/case.parity|statement 'let adults = t where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern" },
         // Spec §2.2: text(x) of a missing value is the string 'nan' under boxed+nan only.
-        { "nan-text", "load t from 't.csv'\nlet labels = t add age_text = text(age)\ncheck labels\n", "missing|ferry/case.parity|labels|age_text" },
+        { "nan-text", "load t from 't.csv'\nlet labels = t add age_text = text(age)\ncheck labels\n", "missing|ferry/case.parity|checkpoint 'labels'|column 'age_text'|the text 'nan' in legacy where modern has null|legacy,modern" },
         // Spec §2.2: a missing join key matches a missing key under nan and never under null.
-        { "join-missing-keys", "load t from 't.csv'\nload o from 'o.csv'\nlet j = t join o on k\ncheck j\n", "shape|ferry/case.parity|j|" },
+        { "join-missing-keys", "load t from 't.csv'\nload o from 'o.csv'\nlet j = t join o on k\ncheck j\n", "shape|ferry/case.parity|checkpoint 'j'|-|row count|legacy,modern" },
         // Spec §2.2: a string predicate on a missing cell is missing under boxed+nan, so filtering by it is E-MASK-MISSING.
-        { "mask-missing", "load t from 't.csv'\nlet n = t where contains(note, 'a')\ncheck n\n", "error|ferry/case.parity|line 2|" },
+        { "mask-missing", "load t from 't.csv'\nlet n = t where contains(note, 'a')\ncheck n\n", "error|ferry/case.parity|statement 'let n = t where contains(note, ''a'')' #1|-|E-MASK-MISSING in legacy only|legacy,modern" },
         // Spec §2.1: integers with missing values are float64 under nan and int64 with nulls under null.
-        { "type-change", "load t from 't.csv'\nload o from 'o.csv'\ncheck t\n", "type|ferry/case.parity|t|age" },
+        { "type-change", "load t from 't.csv'\nload o from 'o.csv'\ncheck t\n", "type|ferry/case.parity|checkpoint 't'|column 'age'|type float64 in legacy, int64 in modern|legacy,modern" },
     };
 
     [Theory]
@@ -105,7 +105,7 @@ public sealed class ShrinkerTests : IDisposable
     public void Drops_the_columns_the_script_never_names_and_keeps_the_named_ones()
     {
         File.WriteAllText(Path.Combine(_dir, "ferry", "case.parity"), "load t from 't.csv'\nlet adults = t where age >= 18 select id, age\ncheck adults\n");
-        var result = Shrink("missing|ferry/case.parity|line 2|", "cols");
+        var result = Shrink("missing|ferry/case.parity|statement 'let adults = t where age >= 18 select id, age' #1|-|rows dropped because the condition was null|legacy,modern", "cols");
         var tickets = Assert.Single(result.Files);
         Assert.Equal(["id", "age"], tickets.KeptColumns);
         // Spec §2.2: the dropped row is one whose age is missing (rows numbered from 0: ids 2, 5 and 8 have none).
@@ -119,7 +119,7 @@ public sealed class ShrinkerTests : IDisposable
         File.WriteAllText(Path.Combine(_dir, "ferry", "case.parity"), "# a comment line\nload t from 't.csv'\nlet adults = t where age >= 18\ncheck adults\n");
         var o = new StringWriter();
         var e = new StringWriter();
-        var exit = Parity.Cli.CliApp.Run(["shrink", "ferry/case.parity", "--finding", "missing|ferry/case.parity|line 3|", "--out", "regress/adults"], new Parity.Cli.CliContext(o, e, _dir));
+        var exit = Parity.Cli.CliApp.Run(["shrink", "ferry/case.parity", "--finding", "missing|ferry/case.parity|statement 'let adults = t where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern", "--out", "regress/adults"], new Parity.Cli.CliContext(o, e, _dir));
         Assert.Equal(0, exit);
         Assert.Equal("", e.ToString());
         Assert.Contains("1-minimal", o.ToString(), StringComparison.Ordinal);
@@ -140,7 +140,7 @@ public sealed class ShrinkerTests : IDisposable
         var exit = Parity.Cli.CliApp.Run(["shrink", "ferry/case.parity", "--finding", "value|nope"], new Parity.Cli.CliContext(new StringWriter(), e, _dir));
         Assert.Equal(2, exit);
         Assert.Contains("E-NO-FINDING", e.ToString(), StringComparison.Ordinal);
-        Assert.Contains("type|ferry/case.parity|t|age", e.ToString(), StringComparison.Ordinal);
+        Assert.Contains("type|ferry/case.parity|checkpoint 't'|column 'age'|type float64 in legacy, int64 in modern|legacy,modern", e.ToString(), StringComparison.Ordinal);
         Assert.False(Directory.Exists(Path.Combine(_dir, "shrink")));
     }
 
@@ -149,7 +149,7 @@ public sealed class ShrinkerTests : IDisposable
     {
         File.WriteAllText(Path.Combine(_dir, "ferry", "case.parity"), "load t from 't.csv'\ncheck t\n");
         var e = new StringWriter();
-        var exit = Parity.Cli.CliApp.Run(["shrink", "ferry/case.parity", "--finding", "type|ferry/case.parity|t|age", "--out", "ferry"], new Parity.Cli.CliContext(new StringWriter(), e, _dir));
+        var exit = Parity.Cli.CliApp.Run(["shrink", "ferry/case.parity", "--finding", "type|ferry/case.parity|checkpoint 't'|column 'age'|type float64 in legacy, int64 in modern|legacy,modern", "--out", "ferry"], new Parity.Cli.CliContext(new StringWriter(), e, _dir));
         Assert.Equal(2, exit);
         Assert.Contains("E-USAGE", e.ToString(), StringComparison.Ordinal);
         Assert.Equal("load t from 't.csv'\ncheck t\n", File.ReadAllText(Path.Combine(_dir, "ferry", "case.parity")));
@@ -161,11 +161,11 @@ public sealed class ShrinkerTests : IDisposable
         File.WriteAllText(Path.Combine(_dir, "ferry", "case.parity"), "load t from 't.csv'\nlet adults = t where age >= 18\ncheck adults\n");
         // A clock that moves one second each time it is read: the bound of 6 seconds ends the reduction after
         // a few attempts, whatever the machine's speed.
-        var result = Shrinker.Run(Request("missing|ferry/case.parity|line 2|", "bounded") with { TimeLimit = TimeSpan.FromSeconds(6), Time = new SteppingClock() });
+        var result = Shrinker.Run(Request("missing|ferry/case.parity|statement 'let adults = t where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern", "bounded") with { TimeLimit = TimeSpan.FromSeconds(6), Time = new SteppingClock() });
         Assert.True(result.StoppedByTimeLimit);
         Assert.False(result.OneMinimal);
-        Assert.Equal("missing|ferry/case.parity|line 2|", result.Finding.Key);
-        Assert.True(HasFinding(Path.GetDirectoryName(result.ScriptOut)!, "missing|ferry/case.parity|line 2|"));
+        Assert.Equal("missing|ferry/case.parity|statement 'let adults = t where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern", result.Finding.Key);
+        Assert.True(HasFinding(Path.GetDirectoryName(result.ScriptOut)!, "missing|ferry/case.parity|statement 'let adults = t where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern"));
         Assert.InRange(result.Attempts, 1, 5);
     }
 
@@ -184,7 +184,7 @@ public sealed class ShrinkerTests : IDisposable
             let adults = trips where age >= 18
             check adults
             """);
-        const string Key = "missing|harbor/trips.parity|line 5|";
+        const string Key = "missing|harbor/trips.parity|statement 'let adults = trips where age >= 18' #1|-|rows dropped because the condition was null|legacy,modern";
         var result = Shrinker.Run(new ShrinkRequest
         {
             ScriptPath = Path.Combine(data, "trips.parity"),
