@@ -119,6 +119,14 @@ public sealed class Frame
     /// Under <c>alias</c> the value is spliced into the shared slot, so every view relative sees it; under
     /// <c>cow</c> the frame gets a fresh slot and nobody else is touched. A new name adds a column owned by
     /// this frame alone (a view's new column does not reach its parent).
+    /// <para>
+    /// A write under <c>alias</c> that changes the column's type (a missing value into int64 or bool under
+    /// <c>nan</c>, a string into a number column under <c>boxed</c>, a float into int64) cannot go into storage
+    /// of the old type: this frame gets its own slot holding the new column, and every other frame keeps the old
+    /// slot, unchanged and still shared among them. Only that column stops being shared; the frame's other
+    /// columns stay in their shared slots. The same holds whichever side writes, view or parent
+    /// (docs/semantics.md, "A write that changes the column's type").
+    /// </para>
     /// </summary>
     public WriteOutcome Write(string name, Column values, Mode mode)
     {
@@ -137,6 +145,12 @@ public sealed class Frame
             var slot = new ColumnSlot(values);
             _columns[i] = new FrameColumn(name, slot, 0, RowCount);
             return new WriteOutcome(fc.Slot, fc.Column, values, false);
+        }
+        if (values.Type != fc.Column.Type)
+        {
+            var own = new ColumnSlot(values);
+            _columns[i] = new FrameColumn(name, own, 0, RowCount);
+            return new WriteOutcome(own, null, values, false);
         }
         var after = ColumnFactory.Splice(before, fc.Offset, values, mode, ErrorCodes.TypeWrite);
         fc.Slot.Data = after;

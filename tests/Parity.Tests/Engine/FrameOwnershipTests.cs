@@ -67,16 +67,33 @@ public sealed class FrameOwnershipTests
     }
 
     [Fact]
-    public void Typed_write_through_a_boxed_view_changes_the_parent_type()
+    public void Type_changing_write_through_a_view_gives_the_view_its_own_column()
     {
-        // Spec §2.2 / writes issue: a typed write into a view under boxed changes the parent's column type too.
+        // docs/semantics.md: under alias a write that changes the column's type (here a string into an int64
+        // column under boxed) gives the writing frame its own column of the new type; the parent keeps its column
+        // unchanged, and the other column stays shared. (Library the modes model, from memory: the view's block is
+        // upcast on its own.)
         var mode = Mode.Legacy;
         var parent = Tickets(mode);
-        var view = parent.View(0, 1);
-        view.Write("fare", ColumnFactory.FromValues([Value.Of("free")], mode), mode);
-        Assert.Equal("object", parent.GetColumn("fare").TypeLabel);
-        Assert.Equal(Value.Of("free"), parent.GetColumn("fare").GetValue(0));
-        Assert.Equal(Value.Of(-5L), parent.GetColumn("fare").GetValue(1));
+        var view = parent.View(0, 2);
+        var outcome = view.Write("fare", ColumnFactory.FromValues([Value.Of("free"), Value.Of(-5L)], mode), mode);
+        Assert.Null(outcome.Before);
+        Assert.Equal("object", view.GetColumn("fare").TypeLabel);
+        Assert.Equal(Value.Of("free"), view.GetColumn("fare").GetValue(0));
+        Assert.Equal("int64", parent.GetColumn("fare").TypeLabel);
+        Assert.Equal(Value.Of(12L), parent.GetColumn("fare").GetValue(0));
+        Assert.NotSame(parent.Columns[0].Slot, view.Columns[0].Slot);
+        Assert.Same(parent.Columns[1].Slot, view.Columns[1].Slot);
+        // The other direction: the parent retypes its own column, the view keeps the old one.
+        var p2 = Tickets(mode);
+        var v2 = p2.View(1, 2);
+        p2.Write("fare", ColumnFactory.FromValues([Value.Of(1.5), Value.Of(2.0), Value.Of(3.0), Value.Of(4.0)], mode), mode);
+        Assert.Equal("float64", p2.GetColumn("fare").TypeLabel);
+        Assert.Equal("int64", v2.GetColumn("fare").TypeLabel);
+        Assert.Equal(Value.Of(-5L), v2.GetColumn("fare").GetValue(0));
+        // A same-type write still splices into the shared slot.
+        v2.Write("passenger", ColumnFactory.FromValues([Value.Of("x"), Value.Of("y")], mode), mode);
+        Assert.Equal(Value.Of("x"), p2.GetColumn("passenger").GetValue(1));
     }
 
     [Fact]
