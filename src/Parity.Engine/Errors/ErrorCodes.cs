@@ -41,6 +41,7 @@ public static class ErrorCodes
 
     // Harness
     public const string Usage = "E-USAGE";
+    public const string Config = "E-CONFIG";
     public const string Golden = "E-GOLDEN";
     public const string GoldenLock = "E-GOLDEN-LOCK";
     public const string Internal = "E-INTERNAL";

@@ -308,6 +308,7 @@ public static class ModeDiffer
             var g = ctx.Group(FindingKind.Type, line, label, n);
             var typeText = "type " + colA.TypeLabel + " in " + ctx.NameA + ", " + colB.TypeLabel + " in " + ctx.NameB;
             g.Add(typeText, 1, TypeHint(colA, colB), 0, typeText);
+            g.FromTo(colA.TypeLabel, colB.TypeLabel);
             // Samples show how the representation differs (34.0 against 34); the search is bounded because a
             // storage-only difference (object against utf8) displays the same in every row.
             var rows = Math.Min(Math.Min(ta.RowCount, tb.RowCount), TypeSampleScan);
@@ -425,6 +426,7 @@ public static class ModeDiffer
             CellScan.Candidates(ca, cb, rows, candidates);
         // Reasons repeat for every cell of a column: build each text once.
         var reasons = new Dictionary<int, (string Text, string Hint, int Rank)>();
+        var differences = 0;
         foreach (var r in candidates)
         {
             var a = ca.GetValue(r);
@@ -449,9 +451,19 @@ public static class ModeDiffer
                 reasons.Add(key, reason);
             }
             missing.Add(reason.Text, 1, reason.Hint, reason.Rank, reason.Text);
+            if (reasons.Count > differences)
+            {
+                // A new reason: record its from/to once (the dictionary above already made the texts unique).
+                missing.FromTo(DifferenceName(d, a), DifferenceName(d, b));
+                differences = reasons.Count;
+            }
             if (missing.WantsSample) missing.Sample(r, CellText.Display(a), CellText.Display(b));
         }
     }
+
+    /// <summary>How one side of a missing difference is named in <see cref="FindingDifference"/>.</summary>
+    private static string DifferenceName(CellDiff d, Value v) =>
+        v.IsMissing ? ValueText.MissingName(v.Missing) : d == CellDiff.NanText ? "'nan'" : "value";
 
     /// <summary>A string that is a type label of spec §2.1, as type_of(c) gives it.</summary>
     private static bool IsTypeLabel(Value v) =>

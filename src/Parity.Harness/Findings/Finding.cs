@@ -51,6 +51,9 @@ public sealed record Finding
 
     public IReadOnlyList<FindingSample> Samples { get; init; } = [];
 
+    /// <summary>The distinct differences of a <c>type</c> or <c>missing</c> finding, in first-seen order; empty for other kinds.</summary>
+    public IReadOnlyList<FindingDifference> FromTo { get; init; } = [];
+
     /// <summary>The count recorded in the golden store when the finding was accepted (for <see cref="FindingStatus.Changed"/>).</summary>
     public int? AcceptedCount { get; init; }
 

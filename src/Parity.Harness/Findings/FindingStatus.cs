@@ -14,4 +14,7 @@ public enum FindingStatus
 
     /// <summary>Accepted before, gone now: reported, does not fail.</summary>
     Resolved,
+
+    /// <summary>Matched by an expect rule of the project file: counted and folded, never fails the gate.</summary>
+    Expected,
 }

@@ -12,6 +12,7 @@ internal sealed class FindingGroup
     private readonly List<(string Reason, long Count)> _reasons = [];
     private readonly SortedSet<string> _differences = new(StringComparer.Ordinal);
     private readonly List<FindingSample> _samples = [];
+    private readonly List<FindingDifference> _fromTo = [];
     private readonly int _maxSamples;
     private int _hintRank = -1;
 
@@ -60,6 +61,14 @@ internal sealed class FindingGroup
         }
     }
 
+    /// <summary>Records what the reason turns into what (type labels, missing markers), once per distinct pair.</summary>
+    public void FromTo(string from, string to)
+    {
+        foreach (var d in _fromTo)
+            if (string.Equals(d.From, from, StringComparison.Ordinal) && string.Equals(d.To, to, StringComparison.Ordinal)) return;
+        _fromTo.Add(new FindingDifference(from, to));
+    }
+
     public bool WantsSample => _samples.Count < _maxSamples;
 
     public void Sample(int? row, params string[] values)
@@ -90,6 +99,7 @@ internal sealed class FindingGroup
             Modes = modes,
             Samples = _samples.ToArray(),
             Occurrences = Checkpoint is null ? [] : [new FindingOccurrence(Checkpoint, Line, (int)Math.Min(Count, int.MaxValue))],
+            FromTo = _fromTo.ToArray(),
         };
     }
 }

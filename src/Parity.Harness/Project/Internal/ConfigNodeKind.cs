@@ -1,0 +1,11 @@
+namespace Parity.Harness.Project.Internal;
+
+internal enum ConfigNodeKind
+{
+    Object,
+    Array,
+    String,
+    Number,
+    Bool,
+    Null,
+}
