@@ -27,6 +27,50 @@ public static class GoldenNames
         return string.Join("~", parts);
     }
 
+    /// <summary>
+    /// The script path a folder name stands for (the inverse of <see cref="ScriptFolder"/>), or null when the
+    /// name is not one <see cref="ScriptFolder"/> writes (a staging folder, a stray folder, bad escapes).
+    /// </summary>
+    public static string? TryScriptOfFolder(string folder)
+    {
+        var parts = folder.Split('~');
+        var decoded = new string[parts.Length];
+        for (var i = 0; i < parts.Length; i++)
+        {
+            var d = TryDecode(parts[i]);
+            if (d is null || !string.Equals(Encode(d), parts[i], StringComparison.Ordinal)) return null;
+            decoded[i] = d;
+        }
+        return string.Join("/", decoded) + ".parity";
+    }
+
+    private static string? TryDecode(string part)
+    {
+        if (part == "%") return "";
+        var bytes = new List<byte>(part.Length);
+        for (var i = 0; i < part.Length; i++)
+        {
+            var c = part[i];
+            if (c != '%')
+            {
+                if (c > 0x7F) return null;
+                bytes.Add((byte)c);
+                continue;
+            }
+            if (i + 2 >= part.Length || !byte.TryParse(part.AsSpan(i + 1, 2), System.Globalization.NumberStyles.AllowHexSpecifier, System.Globalization.CultureInfo.InvariantCulture, out var b)) return null;
+            bytes.Add(b);
+            i += 2;
+        }
+        try
+        {
+            return new UTF8Encoding(false, throwOnInvalidBytes: true).GetString(bytes.ToArray());
+        }
+        catch (DecoderFallbackException)
+        {
+            return null;
+        }
+    }
+
     public static string FrameFile(string label) => Encode(label) + FrameSuffix;
 
     public static string ArrowFile(string label) => Encode(label) + ArrowSuffix;

@@ -26,6 +26,7 @@ public sealed class GoldenStore
     public const int DefaultRowLimit = 1000;
     private const string NewSuffix = "~~accept-new";
     private const string OldSuffix = "~~accept-old";
+    private const string PruneSuffix = "~~prune-old";
     private static readonly UTF8Encoding Utf8 = new(false);
 
     public GoldenStore(string root, string displayRoot, int rowLimit = DefaultRowLimit)
@@ -261,6 +262,69 @@ public sealed class GoldenStore
         if (!Directory.Exists(dir) && Directory.Exists(old)) Directory.Move(old, dir);
         RemoveTree(old);
         RemoveTree(fresh);
+    }
+
+    // ---- stale folders ----------------------------------------------------------------------------
+
+    /// <summary>
+    /// Golden folders left behind by scripts that are gone: each folder of the store whose script lies under
+    /// one of <paramref name="folders"/> (paths relative to the working directory, forward slashes; <c>.</c>
+    /// for the working directory itself) but is not in <paramref name="scripts"/> (the scripts found there).
+    /// Returns the script paths, sorted ordinally. Only folders the user checked count: a script checked by
+    /// path, not by folder, never makes its neighbours stale.
+    /// </summary>
+    public IReadOnlyList<string> FindStale(IReadOnlyList<string> folders, IReadOnlyCollection<string> scripts)
+    {
+        var stale = new List<string>();
+        if (folders.Count == 0 || !Directory.Exists(Root)) return stale;
+        var present = new HashSet<string>(scripts, StringComparer.Ordinal);
+        foreach (var dir in Directory.EnumerateDirectories(Root))
+        {
+            var name = Path.GetFileName(dir);
+            if (name.EndsWith(NewSuffix, StringComparison.Ordinal) || name.EndsWith(PruneSuffix, StringComparison.Ordinal)) continue;
+            if (name.EndsWith(OldSuffix, StringComparison.Ordinal))
+            {
+                // A swap cut short: the folder's data lives here until the next accept recovers it.
+                if (Directory.Exists(dir[..^OldSuffix.Length])) continue;
+                name = name[..^OldSuffix.Length];
+            }
+            var script = GoldenNames.TryScriptOfFolder(name);
+            if (script is null || present.Contains(script)) continue;
+            foreach (var f in folders)
+            {
+                var prefix = f is "." or "" ? "" : f.TrimEnd('/') + "/";
+                if (!script.StartsWith(prefix, StringComparison.Ordinal) || script.StartsWith("../", StringComparison.Ordinal)) continue;
+                stale.Add(script);
+                break;
+            }
+        }
+        stale.Sort(StringComparer.Ordinal);
+        return stale;
+    }
+
+    /// <summary>The mismatch that reports a stale folder (it fails <c>check</c>).</summary>
+    public GoldenMismatch StaleMismatch(string script) => new(script, null, "every mode",
+        "stale golden folder " + DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + ": no script " + CellText.Safe(script)
+        + " (deleted or renamed?); `parity accept --prune` removes it", "");
+
+    /// <summary>
+    /// Removes the golden folder of a script that is gone, under the lock. The folder is first renamed aside
+    /// (one atomic step: readers see it whole or not at all), then deleted; a leftover from a killed prune is
+    /// deleted by the next one.
+    /// </summary>
+    public void Prune(string script)
+    {
+        using var _ = GoldenLock.Acquire(Root, DisplayRoot);
+        foreach (var leftover in Directory.EnumerateDirectories(Root, "*" + PruneSuffix))
+            Directory.Delete(leftover, recursive: true);
+        var dir = ScriptFolder(script);
+        var aside = dir + PruneSuffix;
+        if (Directory.Exists(dir + OldSuffix)) Directory.Delete(dir + OldSuffix, recursive: true);
+        if (Directory.Exists(dir + NewSuffix)) Directory.Delete(dir + NewSuffix, recursive: true);
+        if (!Directory.Exists(dir)) return;
+        Directory.Move(dir, aside);
+        BetweenRenames?.Invoke();
+        Directory.Delete(aside, recursive: true);
     }
 
     // ---- compare ----------------------------------------------------------------------------------

@@ -18,8 +18,13 @@ public static class AxisMatrix
 {
     public static IReadOnlyList<string> Axes { get; } = ["strings", "missing", "writes"];
 
-    /// <summary>The table: one row per legacy-vs-modern finding with, per axis, how many of its four pairs show it.</summary>
-    public static IReadOnlyList<(Finding Finding, int[] PairsPerAxis)> Build(IReadOnlyList<ModeRun> allEight, string script, DiffOptions options)
+    /// <summary>
+    /// The table: one row per legacy-vs-modern finding with, per axis, how many of its four pairs show it, and
+    /// its causes. A cause is a set of axes S such that legacy against legacy with S flipped shows a finding
+    /// of the same kind, place and column, and no smaller such set is inside S (seven comparisons per script;
+    /// flipping all three axes is modern itself, so every finding has at least one cause).
+    /// </summary>
+    public static IReadOnlyList<MatrixRow> Build(IReadOnlyList<ModeRun> allEight, string script, DiffOptions options)
     {
         ModeRun Get(Mode m)
         {
@@ -43,20 +48,69 @@ public static class AxisMatrix
                 }
             }
         }
-        var rows = new List<(Finding, int[])>(main.Count);
+        // Bit i of a mask flips axis i; mask 7 is modern, whose findings are the main ones.
+        var flipped = new HashSet<string>[8];
+        for (var mask = 1; mask < 8; mask++)
+        {
+            flipped[mask] = new HashSet<string>(StringComparer.Ordinal);
+            var target = Mode.Legacy;
+            for (var axis = 0; axis < 3; axis++)
+                if ((mask & (1 << axis)) != 0) target = Flip(target, axis);
+            foreach (var f in mask == 7 ? main : ModeDiffer.Compare(Get(Mode.Legacy), Get(target), script, options))
+                flipped[mask].Add(Place(f));
+        }
+        var rows = new List<MatrixRow>(main.Count);
         foreach (var f in main)
         {
             var key = Place(f);
-            rows.Add((f, [pairCounts[0].GetValueOrDefault(key), pairCounts[1].GetValueOrDefault(key), pairCounts[2].GetValueOrDefault(key)]));
+            rows.Add(new MatrixRow(f, [pairCounts[0].GetValueOrDefault(key), pairCounts[1].GetValueOrDefault(key), pairCounts[2].GetValueOrDefault(key)], Causes(flipped, key)));
         }
         return rows;
     }
 
-    public static string Render(IReadOnlyList<(Finding Finding, int[] PairsPerAxis)> rows)
+    internal static List<IReadOnlyList<string>> Causes(HashSet<string>[] flipped, string key)
+    {
+        var reproducing = new List<int>();
+        for (var mask = 1; mask < 8; mask++)
+            if (flipped[mask].Contains(key)) reproducing.Add(mask);
+        // Smaller sets first, then in axis order: the order the JSON lists them.
+        reproducing.Sort((x, y) => BitCount(x) != BitCount(y) ? BitCount(x).CompareTo(BitCount(y)) : AxisOrder(x).CompareTo(AxisOrder(y)));
+        var causes = new List<IReadOnlyList<string>>();
+        var kept = new List<int>();
+        foreach (var mask in reproducing)
+        {
+            var minimal = true;
+            foreach (var k in kept)
+                if ((k & mask) == k) { minimal = false; break; }
+            if (!minimal) continue;
+            kept.Add(mask);
+            var names = new List<string>(3);
+            for (var axis = 0; axis < 3; axis++)
+                if ((mask & (1 << axis)) != 0) names.Add(Axes[axis]);
+            causes.Add(names);
+        }
+        return causes;
+    }
+
+    private static int BitCount(int mask) => System.Numerics.BitOperations.PopCount((uint)mask);
+
+    /// <summary>Orders masks of one size by their axes read left to right (strings before missing before writes).</summary>
+    private static int AxisOrder(int mask) => (int)(((mask & 1) << 2) | (mask & 2) | ((mask & 4) >> 2)) ^ 7;
+
+    /// <summary>A cause written for people: <c>strings</c>, <c>strings+missing</c>, alternatives joined by <c>|</c>.</summary>
+    public static string CauseText(IReadOnlyList<IReadOnlyList<string>> causes)
+    {
+        var parts = new List<string>(causes.Count);
+        foreach (var c in causes) parts.Add(string.Join("+", c));
+        return string.Join(" | ", parts);
+    }
+
+    public static string Render(IReadOnlyList<MatrixRow> rows)
     {
         var first = new List<string>(rows.Count);
-        foreach (var (f, _) in rows)
+        foreach (var row in rows)
         {
+            var f = row.Finding;
             var sb = new StringBuilder();
             sb.Append(f.KindLabel).Append(" line ").Append(f.Line.ToString(CultureInfo.InvariantCulture));
             if (f.Checkpoint is not null) sb.Append(" checkpoint ").Append(CellText.Quote(f.Checkpoint));
@@ -66,7 +120,7 @@ public static class AxisMatrix
         var width = "finding".Length;
         foreach (var s in first) width = Math.Max(width, s.Length);
         var output = new StringBuilder();
-        output.Append("finding".PadRight(width)).Append("  strings  missing  writes\n");
+        output.Append("finding".PadRight(width)).Append("  strings  missing  writes  caused by\n");
         for (var i = 0; i < rows.Count; i++)
         {
             output.Append(first[i].PadRight(width));
@@ -74,11 +128,12 @@ public static class AxisMatrix
             {
                 output.Append("  ").Append((n == 0 ? "-" : n.ToString(CultureInfo.InvariantCulture) + "/4").PadRight(7));
             }
+            output.Append("  ").Append(CauseText(rows[i].Causes));
             TrimEnd(output);
             output.Append('\n');
         }
         if (rows.Count == 0) output.Append("(no findings between legacy and modern)\n");
-        output.Append("n/4: the finding appears in n of the 4 mode pairs that differ in that axis only\n");
+        output.Append("n/4: the finding appears in n of the 4 mode pairs that differ in that axis only; caused by: the smallest sets of axes whose flip alone, from legacy, shows it (a | b: either one)\n");
         return output.ToString();
     }
 

@@ -123,7 +123,7 @@ internal sealed partial class ScriptRun
     private void Load(LoadStatement load)
     {
         var full = ResolvePath(load);
-        var options = new LoadOptions { DisplayPath = load.Path, Root = _options.AllowOutsideRoot ? null : RootFolder(), Format = load.Format?.Name.ToLowerInvariant(), KeepParsed = _options.KeepParsedSources };
+        var options = new LoadOptions { DisplayPath = ShownPath(full), Root = _options.AllowOutsideRoot ? null : RootFolder(), Format = load.Format?.Name.ToLowerInvariant(), KeepParsed = _options.KeepParsedSources };
         foreach (var o in load.Options)
         {
             switch (o.Key.Name.ToLowerInvariant())
@@ -157,11 +157,22 @@ internal sealed partial class ScriptRun
         }
         catch (EngineException e)
         {
-            // Loaders name file, row and column themselves; keep their text and point at the path.
-            var where = e.Row > 0 ? $" ({e.File ?? load.Path}:{e.Row.ToString(CultureInfo.InvariantCulture)}" + (e.ColumnNumber > 0 ? ":" + e.ColumnNumber.ToString(CultureInfo.InvariantCulture) : "") + ")" : "";
+            // Loaders name file, row and column themselves; keep their text, point at the path in the script and
+            // name the data file as resolved, so a path relative to the script is never a puzzle.
+            var file = e.File ?? options.DisplayPath;
+            var where = e.Row > 0 ? $" (data file {file}:{e.Row.ToString(CultureInfo.InvariantCulture)}" + (e.ColumnNumber > 0 ? ":" + e.ColumnNumber.ToString(CultureInfo.InvariantCulture) : "") + ")" : $" (data file {file})";
             throw Error(e.Code, e.Message + where, load.PathSpan);
         }
         _frames[load.Name.Name] = new NamedFrame(load.Name.Name, Frame.FromTable(table), false);
+    }
+
+    /// <summary>A data file as messages name it: relative to the project root when inside it, else the full path; forward slashes.</summary>
+    private string ShownPath(string full)
+    {
+        var root = Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
+        var relative = Path.GetRelativePath(root, full);
+        var shown = relative.StartsWith("..", StringComparison.Ordinal) || Path.IsPathRooted(relative) ? full : relative;
+        return shown.Replace('\\', '/');
     }
 
     private string ResolvePath(LoadStatement load)
