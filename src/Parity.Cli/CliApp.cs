@@ -18,10 +18,9 @@ public static class CliApp
             root.Subcommands.Add(command);
 
         var parsed = root.Parse(args);
-        if (parsed.Errors.Count > 0)
+        if (UsageMistake(root, parsed, context.WorkingDirectory) is { } mistake)
         {
-            foreach (var error in parsed.Errors)
-                context.Error.WriteLine(GateMessages.Usage(error.Message));
+            context.Error.WriteLine(GateMessages.Usage(mistake));
             return ExitCodes.BadInput;
         }
         try
@@ -44,6 +43,58 @@ public static class CliApp
             return ExitCodes.BadInput;
         }
     }
+
+    /// <summary>
+    /// The first mistake of the command line as one line, with a suggestion where a name is near: an unknown
+    /// command (<c>chek</c>: did you mean <c>check</c>?), an unknown option (<c>--fromat</c>: did you mean
+    /// <c>--format</c>?) even where the parser took it for a script path, or the parser's own first error.
+    /// </summary>
+    private static string? UsageMistake(RootCommand root, ParseResult parsed, string workingDirectory)
+    {
+        var command = parsed.CommandResult.Command;
+        if (ReferenceEquals(command, root))
+        {
+            if (parsed.Tokens.Count == 0) return "no command given; commands: " + Names(root.Subcommands);
+            var first = parsed.Tokens[0].Value;
+            if (!first.StartsWith('-'))
+                return "unknown command '" + Harness.Formatting.CellText.Safe(first) + "'" + Script.Diagnostics.NameSuggester.DidYouMean(first, SubcommandNames(root)) + "; commands: " + Names(root.Subcommands);
+        }
+        // Unknown option-like words: the parser's unmatched tokens, and words it gave a script argument.
+        var suspects = new List<string>();
+        foreach (var t in parsed.UnmatchedTokens) suspects.Add(t);
+        foreach (var child in parsed.CommandResult.Children)
+        {
+            if (child is not System.CommandLine.Parsing.ArgumentResult arg) continue;
+            foreach (var t in arg.Tokens)
+                if (t.Value.Length > 1 && t.Value[0] == '-' && !double.TryParse(t.Value, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _)
+                    && !File.Exists(Path.Combine(workingDirectory, t.Value)) && !Directory.Exists(Path.Combine(workingDirectory, t.Value)))
+                    suspects.Add(t.Value);
+        }
+        foreach (var word in suspects)
+        {
+            if (!word.StartsWith('-')) continue;
+            var options = new List<string>();
+            foreach (var o in command.Options)
+            {
+                if (o.Hidden) continue;
+                options.Add(o.Name);
+                foreach (var alias in o.Aliases) options.Add(alias);
+            }
+            return "unknown option '" + Harness.Formatting.CellText.Safe(word) + "' for " + command.Name + Script.Diagnostics.NameSuggester.DidYouMean(word, options)
+                + "; see `parity " + command.Name + " --help`";
+        }
+        if (parsed.Errors.Count > 0) return parsed.Errors[0].Message;
+        return null;
+    }
+
+    private static List<string> SubcommandNames(Command root)
+    {
+        var names = new List<string>();
+        foreach (var c in root.Subcommands) names.Add(c.Name);
+        return names;
+    }
+
+    private static string Names(IEnumerable<Command> commands) => string.Join(", ", commands.Select(c => c.Name));
 
     private static IEnumerable<Command> CreateCommands(CliContext context)
     {

@@ -14,7 +14,7 @@ namespace Parity.Cli.Commands;
 /// </summary>
 internal static class GateCommandOptions
 {
-    public static Argument<string[]> Scripts() => new("SCRIPT|DIR") { Arity = ArgumentArity.OneOrMore, Description = "Scripts, or folders searched for *.parity files." };
+    public static Argument<string[]> Scripts() => new("SCRIPT|DIR") { Arity = ArgumentArity.ZeroOrMore, Description = "Scripts, folders searched for *.parity files, or globs (default: scripts of the project file)." };
 
     public static Option<string> Modes() => new("--modes") { Description = "Modes to compare, comma-separated: legacy, modern, all, or STRINGS+MISSING+WRITES (default legacy,modern)." };
 
@@ -85,7 +85,8 @@ internal static class GateCommandOptions
     /// <summary>Reads <c>--row-limit</c> into <paramref name="options"/>; false after a usage message on stderr.</summary>
     public static bool TryRowLimit(CliContext context, int? value, ref GateOptions options)
     {
-        var rowLimit = value ?? GoldenStore.DefaultRowLimit;
+        if (value is null) return true; // the default, or the project file's row_limit
+        var rowLimit = value.Value;
         if (rowLimit >= 0)
         {
             options = options with { RowLimit = rowLimit };
@@ -120,6 +121,40 @@ internal static class GateCommandOptions
             context.Error.WriteLine(GateMessages.Usage("--format: " + ex.Message.Split(" (Parameter", StringSplitOptions.None)[0]));
             return false;
         }
+    }
+
+    /// <summary>
+    /// The report writers for <c>--out</c>/<c>--format</c>, falling back to the project file's <c>out</c> and
+    /// <c>formats</c>; an output folder that is an existing file is a usage error (before any work).
+    /// </summary>
+    public static bool TryOutput(CliContext context, string? outDir, string? formats, Harness.Project.ProjectFile? file, int maxDiffRows, out string? dir, out IReadOnlyList<IReportWriter> writers)
+    {
+        dir = outDir is not null ? Path.GetFullPath(outDir, context.WorkingDirectory) : file?.Out;
+        var fileFormats = file?.Formats is { } f ? string.Join(",", f) : null;
+        writers = [];
+        if (dir is not null && File.Exists(dir))
+        {
+            context.Error.WriteLine(GateMessages.Usage("--out: '" + CellText.Safe(outDir ?? ProjectSettings.Shown(dir, context)) + "' is a file, not a folder; give a folder for the reports"));
+            return false;
+        }
+        // The project file's formats matter only where there is an output folder; --format alone is a mistake.
+        return dir is null ? TryWriters(context, null, formats, maxDiffRows, out writers) : TryWriters(context, dir, formats ?? fileFormats, maxDiffRows, out writers);
+    }
+
+    /// <summary>Modes of a comparison: fewer than two is a usage error (nothing to compare).</summary>
+    public static bool TryTwoModes(CliContext context, string command, GateOptions options)
+    {
+        if (options.Modes.Count >= 2) return true;
+        context.Error.WriteLine(GateMessages.Usage("--modes: " + command + " compares modes and needs at least two (e.g. --modes legacy,modern); got " + options.Modes[0].Name));
+        return false;
+    }
+
+    /// <summary><c>check</c> against a golden folder named by <c>--golden</c> or the project file that does not exist is a usage error.</summary>
+    public static bool TryGoldenExists(CliContext context, GateOptions options, bool named)
+    {
+        if (!named || Directory.Exists(Path.GetFullPath(options.Golden, context.WorkingDirectory))) return true;
+        context.Error.WriteLine(GateMessages.Usage("--golden: no such folder '" + CellText.Safe(options.Golden) + "'; check compares with snapshots written by `parity accept`; give the folder that holds them"));
+        return false;
     }
 
     /// <summary>Prints each bad-input message on stderr.</summary>

@@ -43,6 +43,12 @@ internal sealed class RunLimitOptions
         command.Options.Add(_allowOutsideRoot);
     }
 
+    /// <summary>True when the command line gives <c>--max-rows</c> (it then overrides the project file).</summary>
+    public bool GivesMaxRows(ParseResult parse) => parse.GetValue(_maxRows) is not null;
+
+    /// <summary>True when the command line gives <c>--max-string-bytes</c>.</summary>
+    public bool GivesMaxStringBytes(ParseResult parse) => parse.GetValue(_maxStringBytes) is not null;
+
     /// <summary>
     /// Gate options for the working directory with the limits the command line asks for, or false after a
     /// usage message on stderr.

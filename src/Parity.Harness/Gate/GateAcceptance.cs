@@ -6,6 +6,9 @@ public sealed record GateAcceptance
     /// <summary>The scripts accepted, in order.</summary>
     public required IReadOnlyList<AcceptedScript> Scripts { get; init; }
 
+    /// <summary>Scripts whose stale golden folders were removed (<c>accept --prune</c>), sorted.</summary>
+    public IReadOnlyList<string> Pruned { get; init; } = [];
+
     /// <summary>Located messages of arguments and scripts that could not be accepted.</summary>
     public required IReadOnlyList<string> Problems { get; init; }
 

@@ -39,6 +39,12 @@ public sealed record GateOptions
     /// <summary>Most UTF-8 bytes one computed string may have before a run stops with <c>E-LIMIT</c>.</summary>
     public long MaxStringBytes { get; init; } = RunOptions.Default.MaxStringBytes;
 
+    /// <summary>Expect rules of the project file: matching findings are expected differences (docs/workflow.md).</summary>
+    public IReadOnlyList<Project.ExpectRule> Expect { get; init; } = [];
+
+    /// <summary>How many scripts run at once (default 1); reports are the same whatever the number.</summary>
+    public int Jobs { get; init; } = 1;
+
     /// <summary>Keep every script's runs (all modes' checkpoint frames) in the results; off by default, as
     /// they hold every frame in memory until the results are dropped.</summary>
     public bool KeepRuns { get; init; }

@@ -20,6 +20,9 @@ public sealed record GateRun
     /// <see cref="GateOptions.KeepRuns"/>.</summary>
     public IReadOnlyList<ScriptOutcome> Outcomes { get; init; } = [];
 
+    /// <summary>Expect rules that matched no finding of this run, in file order (they may be stale).</summary>
+    public IReadOnlyList<Project.ExpectRule> UnmatchedRules { get; init; } = [];
+
     /// <summary>True when some input was bad (<see cref="Problems"/> is not empty).</summary>
     public bool HasBadInput => Problems.Count > 0;
 

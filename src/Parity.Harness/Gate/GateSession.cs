@@ -2,6 +2,7 @@ using Parity.Engine.Modes;
 using Parity.Harness.Diffing;
 using Parity.Harness.Findings;
 using Parity.Harness.Golden;
+using Parity.Harness.Project;
 using Parity.Harness.Running;
 using Parity.Harness.Showing;
 using Parity.Script.Diagnostics;
@@ -45,10 +46,17 @@ public sealed class GateSession
     /// <c>accept</c>: writes or refreshes each script's golden snapshot and accepted findings; with
     /// <paramref name="checkpoint"/>, only that checkpoint's frames and findings.
     /// </summary>
-    public GateAcceptance Accept(IEnumerable<string> scripts, string? checkpoint = null)
+    public GateAcceptance Accept(IEnumerable<string> scripts, string? checkpoint = null) => Accept(scripts, checkpoint, prune: false);
+
+    /// <summary>
+    /// As <see cref="Accept(IEnumerable{string}, string?)"/>; with <paramref name="prune"/>, golden folders of
+    /// scripts that are gone from the folders given are removed too (each atomically, see <see cref="GoldenStore.Prune"/>).
+    /// </summary>
+    public GateAcceptance Accept(IEnumerable<string> scripts, string? checkpoint, bool prune)
     {
         var problems = new List<string>();
-        var files = ScriptFiles.Resolve(scripts, Options.WorkingDirectory, problems);
+        var arguments = new List<string>(scripts);
+        var files = ScriptFiles.Resolve(arguments, Options.WorkingDirectory, problems);
         var accepted = new List<AcceptedScript>(files.Count);
         foreach (var file in files)
         {
@@ -65,7 +73,16 @@ public sealed class GateSession
             accepted.Add(new AcceptedScript(outcome.Script, checkpoint, checkpoints, outcome.Runs.Count, findings.Count,
                 Store.DisplayRoot + "/" + GoldenNames.ScriptFolder(outcome.Script)));
         }
-        return new GateAcceptance { Scripts = accepted, Problems = problems };
+        var pruned = new List<string>();
+        if (prune && problems.Count == 0)
+        {
+            foreach (var stale in Store.FindStale(FolderArguments(arguments), Relatives(files)))
+            {
+                Store.Prune(stale);
+                pruned.Add(stale);
+            }
+        }
+        return new GateAcceptance { Scripts = accepted, Problems = problems, Pruned = pruned };
     }
 
     /// <summary>
@@ -78,17 +95,28 @@ public sealed class GateSession
         var files = ScriptFiles.Resolve(scripts, Options.WorkingDirectory, problems);
         var results = new List<MatrixScript>(files.Count);
         if (problems.Count > 0) return new GateMatrix { Scripts = results, Problems = problems };
-        foreach (var file in files)
+        var rules = new ExpectRuleSet(Options.Expect);
+        var outcomes = ForEachScript(files, file => RunScript(file, Mode.All));
+        foreach (var outcome in outcomes)
         {
-            var outcome = RunScript(file, Mode.All);
             if (outcome.IsBadInput)
             {
                 problems.AddRange(outcome.BadInputMessages);
                 continue;
             }
-            results.Add(new MatrixScript(outcome.Script, AxisMatrix.Build(outcome.Runs, outcome.Script, Options.Diff)));
+            var rows = AxisMatrix.Build(outcome.Runs, outcome.Script, Options.Diff);
+            // Status against the accepted set and the expect rules, as run gives it for legacy against modern.
+            var found = new List<Finding>(rows.Count);
+            foreach (var r in rows) found.Add(r.Finding);
+            var marked = rules.Apply(GoldenStore.ApplyAccepted(found, Store.ReadAccepted(outcome.Script), outcome.Script));
+            var byKey = new Dictionary<string, Finding>(StringComparer.Ordinal);
+            foreach (var f in marked)
+                if (f.Status != FindingStatus.Resolved) byKey.TryAdd(f.Key, f);
+            var statused = new List<MatrixRow>(rows.Count);
+            foreach (var r in rows) statused.Add(r with { Finding = byKey.GetValueOrDefault(r.Finding.Key, r.Finding) });
+            results.Add(new MatrixScript(outcome.Script, statused));
         }
-        return new GateMatrix { Scripts = results, Problems = problems, ScriptCount = files.Count };
+        return new GateMatrix { Scripts = results, Problems = problems, ScriptCount = files.Count, UnmatchedRules = rules.Unmatched() };
     }
 
     /// <summary><c>show</c>: runs <paramref name="script"/> in <paramref name="mode"/> and picks the checkpoint labelled <paramref name="label"/>.</summary>
@@ -145,27 +173,95 @@ public sealed class GateSession
     private GateRun Gate(string command, IEnumerable<string> scripts, bool compareSnapshots)
     {
         var problems = new List<string>();
-        var files = ScriptFiles.Resolve(scripts, Options.WorkingDirectory, problems);
+        var arguments = new List<string>(scripts);
+        var files = ScriptFiles.Resolve(arguments, Options.WorkingDirectory, problems);
+        var rules = new ExpectRuleSet(Options.Expect);
+        var started = 0;
+        // Scripts run in parallel with --jobs N; each result lands in its own slot, so the report's order and
+        // bytes never depend on which script finished first.
+        var evaluated = ForEachScript(files, file =>
+        {
+            var n = Interlocked.Increment(ref started);
+            if (files.Count > 1) Progress?.Invoke(n, files.Count, ScriptFiles.Relative(file, Options.WorkingDirectory));
+            var outcome = RunScript(file);
+            if (outcome.IsBadInput) return (outcome, (ScriptResult?)null);
+            var result = Evaluate(outcome, compareSnapshots);
+            result = result with { Findings = rules.Apply(result.Findings) };
+            return (Options.KeepRuns ? outcome : outcome with { Runs = [] }, result);
+        });
         var results = new List<ScriptResult>(files.Count);
         var outcomes = new List<ScriptOutcome>();
-        for (var i = 0; i < files.Count; i++)
+        foreach (var (outcome, result) in evaluated)
         {
-            if (files.Count > 1) Progress?.Invoke(i + 1, files.Count, ScriptFiles.Relative(files[i], Options.WorkingDirectory));
-            var outcome = RunScript(files[i]);
-            if (outcome.IsBadInput)
+            if (result is null)
             {
                 problems.AddRange(outcome.BadInputMessages);
                 continue;
             }
-            results.Add(Evaluate(outcome, compareSnapshots));
+            results.Add(result);
             if (Options.KeepRuns) outcomes.Add(outcome);
+        }
+        if (compareSnapshots && problems.Count == 0)
+        {
+            // A folder checked whose golden store still holds a script that is gone: a stale-golden mismatch.
+            foreach (var stale in Store.FindStale(FolderArguments(arguments), Relatives(files)))
+                results.Add(new ScriptResult { Script = stale, Modes = [], Findings = [], Checkpoints = [], GoldenMismatches = [Store.StaleMismatch(stale)] });
         }
         return new GateRun
         {
             Report = new GateReport { Command = command, Scripts = results },
             Problems = problems,
             Outcomes = outcomes,
+            UnmatchedRules = rules.Unmatched(),
         };
+    }
+
+    /// <summary>Runs <paramref name="work"/> for every file, <see cref="GateOptions.Jobs"/> at a time; results in file order.</summary>
+    private List<T> ForEachScript<T>(IReadOnlyList<string> files, Func<string, T> work)
+    {
+        var slots = new T[files.Count];
+        if (Options.Jobs <= 1 || files.Count <= 1)
+        {
+            for (var i = 0; i < files.Count; i++) slots[i] = work(files[i]);
+        }
+        else
+        {
+            // A failure is rethrown as itself, the first in file order, as a run with one job would throw it.
+            var failures = new Exception?[files.Count];
+            Parallel.For(0, files.Count, new ParallelOptions { MaxDegreeOfParallelism = Options.Jobs }, i =>
+            {
+                try
+                {
+                    slots[i] = work(files[i]);
+                }
+                catch (Exception e)
+                {
+                    failures[i] = e;
+                }
+            });
+            foreach (var e in failures)
+                if (e is not null) System.Runtime.ExceptionServices.ExceptionDispatchInfo.Throw(e);
+        }
+        return [.. slots];
+    }
+
+    /// <summary>The arguments that are folders, relative to the working directory with forward slashes.</summary>
+    private List<string> FolderArguments(IEnumerable<string> arguments)
+    {
+        var folders = new List<string>();
+        foreach (var a in arguments)
+        {
+            var full = Path.GetFullPath(a, Options.WorkingDirectory);
+            if (Directory.Exists(full)) folders.Add(ScriptFiles.Relative(full, Options.WorkingDirectory));
+        }
+        return folders;
+    }
+
+    private List<string> Relatives(IReadOnlyList<string> files)
+    {
+        var list = new List<string>(files.Count);
+        foreach (var f in files) list.Add(ScriptFiles.Relative(f, Options.WorkingDirectory));
+        return list;
     }
 
     private ScriptOutcome RunScript(string fullPath, IReadOnlyList<Mode> modes)

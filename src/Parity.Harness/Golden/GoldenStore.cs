@@ -305,7 +305,7 @@ public sealed class GoldenStore
     /// <summary>The mismatch that reports a stale folder (it fails <c>check</c>).</summary>
     public GoldenMismatch StaleMismatch(string script) => new(script, null, "every mode",
         "stale golden folder " + DisplayRoot + "/" + GoldenNames.ScriptFolder(script) + ": no script " + CellText.Safe(script)
-        + " (deleted or renamed?); `parity accept --prune` removes it", "");
+        + " (deleted or renamed?); `parity accept --prune` removes it", "") { Kind = GoldenMismatchKinds.StaleGolden };
 
     /// <summary>
     /// Removes the golden folder of a script that is gone, under the lock. The folder is first renamed aside

@@ -5,10 +5,12 @@ using Parity.Harness.Reports.Internal;
 namespace Parity.Harness.Reports;
 
 /// <summary>
-/// The summary printed after <c>run</c> and <c>check</c>: per script one line with its status and finding
-/// counts by kind, then each finding on one line (kind, line, checkpoint, column, count, status, message)
-/// with its samples indented below, then golden mismatches. Colour (ANSI SGR) only when asked; data values
-/// never carry control characters to the terminal (they are shown as visible escapes).
+/// The summary printed after <c>run</c> and <c>check</c> (docs/reports.md, "Terminal"): per script one line
+/// with its status and counts, then what needs a decision in full (new and changed findings with samples and
+/// hint, golden mismatches), then accepted, expected and resolved findings as one count line (one line each
+/// with <c>--show-accepted</c>). The last line counts scripts failed, findings by status and golden
+/// mismatches; after a failure one more line says what to do next. Colour (ANSI SGR) only when asked; data
+/// values never carry control characters to the terminal (they are shown as visible escapes).
 /// </summary>
 public static class TerminalSummary
 {
@@ -40,30 +42,66 @@ public static class TerminalSummary
             if (script.GoldenMismatches.Count > 0)
                 sb.Append(", ").Append(ReportFacts.Int(script.GoldenMismatches.Count)).Append(script.GoldenMismatches.Count == 1 ? " golden mismatch" : " golden mismatches");
             output.WriteLine(sb.ToString());
+            if (options.Quiet) continue;
 
-            var folded = new int[ReportFacts.Kinds.Count];
-            var foldedCount = 0;
+            // What needs a decision first and in full; the rest folded into one count line per status.
             foreach (var f in script.Findings)
-            {
-                if (f.Status == FindingStatus.Accepted && !options.ShowAccepted)
-                {
-                    folded[(int)f.Kind]++;
-                    foldedCount++;
-                    continue;
-                }
-                WriteFinding(output, f, colour);
-            }
-            if (foldedCount > 0)
-                output.WriteLine("  accepted: " + ReportFacts.Int(foldedCount) + (foldedCount == 1 ? " finding (" : " findings (") + ReportFacts.KindSummary(folded) + "); --show-accepted lists them");
+                if (NeedsDecision(f)) WriteFinding(output, f, colour);
             foreach (var m in script.GoldenMismatches)
                 WriteMismatch(output, m, colour, options.MaxDiffRows);
+            foreach (var status in Folded)
+            {
+                var kinds = new int[ReportFacts.Kinds.Count];
+                var n = 0;
+                foreach (var f in script.Findings)
+                {
+                    if (f.Status != status) continue;
+                    if (options.ShowAccepted) WriteFinding(output, f, colour);
+                    kinds[(int)f.Kind]++;
+                    n++;
+                }
+                if (n > 0 && !options.ShowAccepted)
+                    output.WriteLine("  " + ReportFacts.Label(status) + ": " + ReportFacts.Int(n) + (n == 1 ? " finding (" : " findings (") + ReportFacts.KindSummary(kinds) + "); --show-accepted lists them");
+            }
+        }
+        WriteLastLines(report, output, colour);
+    }
+
+    private static readonly FindingStatus[] Folded = [FindingStatus.Accepted, FindingStatus.Expected, FindingStatus.Resolved];
+
+    private static bool NeedsDecision(Finding f) => f.Status is FindingStatus.New or FindingStatus.Changed;
+
+    /// <summary>
+    /// <c>failed: 1 of 5 scripts; findings: 3 new, 40 accepted, 12 expected; 18 golden mismatches</c>, then,
+    /// after a failure, what to do next.
+    /// </summary>
+    private static void WriteLastLines(GateReport report, TextWriter output, bool colour)
+    {
+        var failedScripts = 0;
+        var mismatches = 0;
+        var byStatus = new int[Enum.GetValues<FindingStatus>().Length];
+        foreach (var s in report.Scripts)
+        {
+            if (s.Failed) failedScripts++;
+            mismatches += s.GoldenMismatches.Count;
+            foreach (var f in s.Findings) byStatus[(int)f.Status]++;
         }
         var total = new StringBuilder();
         Paint(total, report.Failed ? "failed" : "passed", report.Failed ? Red + Bold : Green + Bold, colour);
         var scripts = report.Scripts.Count;
-        total.Append(": ").Append(ReportFacts.Int(scripts)).Append(scripts == 1 ? " script" : " scripts")
-            .Append(", findings: ").Append(ReportFacts.KindSummary(ReportFacts.CountByKind(report)));
+        total.Append(": ");
+        if (report.Failed) total.Append(ReportFacts.Int(failedScripts)).Append(" of ");
+        total.Append(ReportFacts.Int(scripts)).Append(scripts == 1 ? " script" : " scripts");
+        var parts = new List<string>();
+        foreach (var status in new[] { FindingStatus.New, FindingStatus.Changed, FindingStatus.Accepted, FindingStatus.Expected, FindingStatus.Resolved })
+            if (byStatus[(int)status] > 0) parts.Add(ReportFacts.Int(byStatus[(int)status]) + " " + ReportFacts.Label(status));
+        total.Append("; findings: ").Append(parts.Count == 0 ? "none" : string.Join(", ", parts));
+        total.Append("; ").Append(ReportFacts.Int(mismatches)).Append(mismatches == 1 ? " golden mismatch" : " golden mismatches");
         output.WriteLine(total.ToString());
+        if (!report.Failed) return;
+        output.WriteLine(mismatches > 0
+            ? "next: read the golden mismatches above; if the change is intended, run `parity accept` on the failed scripts (`parity accept --prune DIR` for stale folders), else fix the script or data"
+            : "next: read the new and changed findings above; accept intended ones with `parity accept SCRIPT`, or add an expect rule to parity.json for a whole class of them");
     }
 
     private static void WriteMismatch(TextWriter output, GoldenMismatch m, bool colour, int maxRows)
@@ -81,7 +119,7 @@ public static class TerminalSummary
     private static void AppendStatusCounts(StringBuilder sb, ScriptResult script)
     {
         var parts = new List<string>();
-        foreach (var status in new[] { FindingStatus.New, FindingStatus.Changed, FindingStatus.Accepted, FindingStatus.Resolved })
+        foreach (var status in new[] { FindingStatus.New, FindingStatus.Changed, FindingStatus.Accepted, FindingStatus.Expected, FindingStatus.Resolved })
         {
             var n = ReportFacts.CountByStatus(script, status);
             if (n > 0) parts.Add(ReportFacts.Int(n) + " " + ReportFacts.Label(status));

@@ -8,7 +8,7 @@ namespace Parity.Harness.Running;
 public static class ScriptFiles
 {
     /// <summary>
-    /// Each argument is a script file or a folder; a folder stands for every <c>*.parity</c> file below it,
+    /// Each argument is a script file, a folder or a glob (<c>*</c>, <c>?</c>, <c>**</c>; docs/workflow.md); a folder stands for every <c>*.parity</c> file below it,
     /// sorted ordinally by path relative to the working directory. Duplicates are dropped (first wins). An
     /// argument that does not exist, or a folder without scripts, goes to <paramref name="errors"/> as a
     /// located message.
@@ -27,6 +27,15 @@ public static class ScriptFiles
         foreach (var arg in arguments)
         {
             var full = Path.GetFullPath(arg, workingDirectory);
+            if (Project.Internal.Glob.HasWildcard(arg))
+            {
+                var matched = ExpandGlob(full.Replace('\\', '/'), workingDirectory, errors);
+                matched.Sort((a, b) => string.CompareOrdinal(Relative(a, workingDirectory), Relative(b, workingDirectory)));
+                if (matched.Count == 0) errors.Add(ControlEscape.Escape(arg) + ": error " + ErrorCodes.FileNotFound + ": no .parity scripts match this pattern");
+                foreach (var f in matched)
+                    if (seen.Add(f)) result.Add(f);
+                continue;
+            }
             if (File.Exists(full))
             {
                 if (seen.Add(full)) result.Add(full);
@@ -117,6 +126,36 @@ public static class ScriptFiles
     }
 
     private static string Shown(string path, string workingDirectory) => ControlEscape.Escape(Relative(path, workingDirectory));
+
+    /// <summary>
+    /// The <c>*.parity</c> files a glob (a full path with <c>*</c>, <c>?</c>, <c>**</c>) matches: the folder
+    /// before the first wildcard is searched, and each file's path below it is matched against the rest.
+    /// </summary>
+    private static List<string> ExpandGlob(string pattern, string workingDirectory, List<string> errors)
+    {
+        var matched = new List<string>();
+        var wild = pattern.AsSpan().IndexOfAny('*', '?');
+        var slash = pattern.LastIndexOf('/', wild);
+        var baseDir = slash <= 0 ? "/" : pattern[..slash];
+        var rest = pattern[(slash + 1)..];
+        if (!Directory.Exists(baseDir)) return matched;
+        string realTop;
+        try
+        {
+            realTop = PhysicalPath.Resolve(baseDir);
+        }
+        catch (EngineException e)
+        {
+            errors.Add(Shown(baseDir, workingDirectory) + ": error " + e.Code + ": " + ControlEscape.Escape(e.Message));
+            return matched;
+        }
+        // The folder is walked by the same rules as a folder argument; the glob then picks among its scripts.
+        var found = new List<string>();
+        Walk(baseDir, realTop, new HashSet<string>(StringComparer.Ordinal) { realTop }, found, workingDirectory, errors);
+        foreach (var f in found)
+            if (Project.Internal.Glob.IsMatch(rest, Path.GetRelativePath(baseDir, f).Replace('\\', '/'))) matched.Add(f);
+        return matched;
+    }
 
     /// <summary>The path relative to the working directory with forward slashes: the script's name in findings and the golden store.</summary>
     public static string Relative(string fullPath, string workingDirectory) =>
