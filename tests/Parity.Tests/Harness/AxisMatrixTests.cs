@@ -1,6 +1,7 @@
 using Parity.Engine.Modes;
 using Parity.Harness.Diffing;
 using Parity.Harness.Findings;
+using Parity.Harness.Gate;
 using Parity.Harness.Reports;
 using Parity.Harness.Running;
 
@@ -50,7 +51,7 @@ public sealed class AxisMatrixTests : IDisposable
             let labels = t add age_text = text(age)
             check labels
             """);
-        var outcome = GateRunner.RunScript(Path.Combine(_dir, "m.parity"), _dir, Mode.All);
+        var outcome = new GateSession(new GateOptions { WorkingDirectory = _dir, Modes = Mode.All }).RunScript(Path.Combine(_dir, "m.parity"));
         var rows = AxisMatrix.Build(outcome.Runs, outcome.Script, DiffOptions.Default);
         string CauseOf(FindingKind kind, string? column) =>
             AxisMatrix.CauseText(rows.Single(r => r.Finding.Kind == kind && r.Finding.Column == column).Causes);

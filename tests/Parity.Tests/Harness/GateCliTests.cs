@@ -207,9 +207,12 @@ public sealed class GateCliTests : IDisposable
     [Fact]
     public void Matrix_attributes_each_finding_to_an_axis()
     {
+        // Spec §4: matrix exits 1 while a finding is not accepted, 0 once it is.
         var (exit, output, err) = Cli("matrix", "ferry/refunds.parity");
-        Assert.Equal(0, exit);
+        Assert.Equal(1, exit);
         Assert.Equal("", err);
+        Assert.Equal(0, Cli("accept", "ferry").Exit);
+        Assert.Equal(0, Cli("matrix", "ferry").Exit);
         Assert.Contains("strings  missing  writes", output, StringComparison.Ordinal);
         // The chained write differs by the writes axis only (spec §2.2).
         Assert.Matches(@"alias line 3\s+-\s+-\s+4/4", output);

@@ -37,7 +37,23 @@ public sealed class TerminalSummaryTests
         Assert.DoesNotContain("      row 3:  legacy NaN  |  modern null", lines);
         Assert.Contains("      legacy 'cheap', 'tickets'  |  modern 'cheap'", lines);
         Assert.Contains("PASS  ferry/routes.parity  1 checkpoint, findings: none (1 resolved)", lines);
-        Assert.Equal("failed: 2 scripts, findings: 1 type, 1 missing, 1 alias", lines[^2]);
+        // The last line counts scripts failed, findings by status and golden mismatches; then the next step.
+        Assert.Equal("failed: 1 of 2 scripts; findings: 2 new, 1 accepted, 1 resolved; 0 golden mismatches", lines[^3]);
+        Assert.StartsWith("next: ", lines[^2], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Show_accepted_lists_folded_findings_and_quiet_prints_only_the_summary()
+    {
+        var shown = Render(ReportFixtures.Ordinary(), colour: false, new TerminalOptions { ShowAccepted = true }).Split('\n');
+        // Resolved findings fold like accepted ones and are listed with --show-accepted.
+        Assert.Contains(shown, l => l.Contains("  resolved  ", StringComparison.Ordinal));
+        Assert.DoesNotContain(shown, l => l.StartsWith("  resolved: ", StringComparison.Ordinal));
+        Assert.Contains("  resolved: 1 finding (1 type); --show-accepted lists them", Render(ReportFixtures.Ordinary(), colour: false).Split('\n'));
+        var lines = Render(ReportFixtures.Ordinary(), colour: false, new TerminalOptions { Quiet = true }).Split('\n');
+        Assert.Equal(5, lines.Length); // two script lines, the last line, the next step, and the final newline
+        Assert.StartsWith("FAIL  ferry/tickets.parity", lines[0], StringComparison.Ordinal);
+        Assert.StartsWith("failed: 1 of 2 scripts", lines[2], StringComparison.Ordinal);
     }
 
     // ECMA-48 control functions start with ESC (U+001B): without colour no ESC at all is written.

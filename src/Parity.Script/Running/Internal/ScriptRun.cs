@@ -172,7 +172,15 @@ internal sealed partial class ScriptRun
         var root = Path.GetFullPath(_options.Root ?? Directory.GetCurrentDirectory());
         var relative = Path.GetRelativePath(root, full);
         var shown = relative.StartsWith("..", StringComparison.Ordinal) || Path.IsPathRooted(relative) ? full : relative;
-        return shown.Replace('\\', '/');
+        shown = shown.Replace('\\', '/');
+        // A file name may hold control characters; a message must never carry them to a terminal.
+        var sb = new System.Text.StringBuilder(shown.Length);
+        foreach (var c in shown)
+        {
+            if (c < ' ' || c is >= '\u007f' and <= '\u009f') sb.Append("\\u{").Append(((int)c).ToString("X", CultureInfo.InvariantCulture)).Append('}');
+            else sb.Append(c);
+        }
+        return sb.ToString();
     }
 
     private string ResolvePath(LoadStatement load)
