@@ -1,4 +1,5 @@
 using System.CommandLine;
+using Parity.Harness.Formatting;
 using Parity.Harness.Gate;
 
 namespace Parity.Cli.Commands;
