@@ -37,6 +37,7 @@ public static class AcceptCommand
                 || !GateCommandOptions.TryRowLimit(context, p.GetValue(rowLimit), ref options)
                 || !ProjectSettings.TryScripts(context, p.GetValue(scripts) ?? [], file, out var scriptList))
                 return ExitCodes.BadInput;
+            options = ProjectSettings.WithColumnTolerances(options, file);
             var session = new GateSession(options);
             var result = session.Accept(scriptList, p.GetValue(checkpoint), p.GetValue(prune));
             GateCommandOptions.WriteProblems(context, result.Problems);

@@ -42,6 +42,7 @@ internal static class GateCommand
                 || !GateCommandOptions.TryOutput(context, p.GetValue(outDir), p.GetValue(format), file, terminal.MaxDiffRows, out var dir, out var writers)
                 || !ProjectSettings.TryScripts(context, p.GetValue(scripts) ?? [], file, out var scriptList))
                 return ExitCodes.BadInput;
+            options = ProjectSettings.WithColumnTolerances(options, file);
             terminal = terminal with { Quiet = project.Quiet(p) };
             return Execute(context, new GateSession(options) { Progress = Progress(context) }, scriptList, compareSnapshots, dir, writers, terminal);
         });

@@ -36,6 +36,7 @@ public static class MatrixCommand
                 || !TryFormats(context, p.GetValue(outDir), p.GetValue(format), out var dir, out var formats)
                 || !ProjectSettings.TryScripts(context, p.GetValue(scripts) ?? [], file, out var scriptList))
                 return ExitCodes.BadInput;
+            options = ProjectSettings.WithColumnTolerances(options, file);
             var result = new GateSession(options).Matrix(scriptList);
             GateCommandOptions.WriteProblems(context, result.Problems);
             var pairs = new List<(string, IReadOnlyList<MatrixRow>)>();

@@ -74,6 +74,31 @@ internal sealed class ProjectSettings
         return true;
     }
 
+    /// <summary>
+    /// The project file's per-column tolerances (<c>tolerance.columns</c>): the first glob that matches a
+    /// column gives its tolerance; a side it leaves out falls back to the global one (command line or file).
+    /// Called after the command-line tolerances are read.
+    /// </summary>
+    public static GateOptions WithColumnTolerances(GateOptions options, ProjectFile? file)
+    {
+        if (file is null || file.ColumnTolerances.Count == 0) return options;
+        var rules = file.ColumnTolerances;
+        var absolute = options.Diff.FloatTolerance;
+        var relative = options.Diff.RelativeTolerance;
+        return options with
+        {
+            Diff = options.Diff with
+            {
+                ColumnTolerance = column =>
+                {
+                    foreach (var r in rules)
+                        if (ExpectRule.GlobMatches(r.Glob, column)) return new Harness.Diffing.FloatTolerance(r.Absolute ?? absolute, r.Relative ?? relative);
+                    return null;
+                },
+            },
+        };
+    }
+
     /// <summary>The scripts to run: the arguments, else the project file's <c>scripts</c>; none is a usage error.</summary>
     public static bool TryScripts(CliContext context, string[] given, ProjectFile? file, out IReadOnlyList<string> scripts)
     {

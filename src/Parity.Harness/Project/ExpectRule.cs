@@ -32,6 +32,9 @@ public sealed record ExpectRule
     /// <summary>Why the difference is expected, for people reading the file and the reports.</summary>
     public string? Note { get; init; }
 
+    /// <summary>The glob rule of the project file (<c>*</c>, <c>?</c>, <c>**</c>), for column and script patterns.</summary>
+    public static bool GlobMatches(string pattern, string text) => Glob.IsMatch(pattern, text);
+
     /// <summary>
     /// True when <paramref name="finding"/> meets every matcher. With <see cref="From"/> or <see cref="To"/>
     /// the finding must record differences and every one of them must agree, so a new kind of difference

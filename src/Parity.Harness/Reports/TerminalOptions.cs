@@ -5,7 +5,7 @@ public sealed record TerminalOptions
 {
     public static TerminalOptions Default { get; } = new();
 
-    /// <summary>List accepted, expected and resolved findings one line each instead of one count line per script (<c>--show-accepted</c>).</summary>
+    /// <summary>List accepted and expected findings one line each instead of one count line per script (<c>--show-accepted</c>).</summary>
     public bool ShowAccepted { get; init; }
 
     /// <summary>Only the per-script lines and the last lines (<c>--quiet</c>).</summary>

@@ -7,8 +7,8 @@ namespace Parity.Harness.Reports;
 /// <summary>
 /// The summary printed after <c>run</c> and <c>check</c> (docs/reports.md, "Terminal"): per script one line
 /// with its status and counts, then what needs a decision in full (new and changed findings with samples and
-/// hint, golden mismatches), then accepted, expected and resolved findings as one count line (one line each
-/// with <c>--show-accepted</c>). The last line counts scripts failed, findings by status and golden
+/// hint, golden mismatches), resolved findings one line each, then accepted and expected findings as one
+/// count line per status (one line each with <c>--show-accepted</c>). The last line counts scripts failed, findings by status and golden
 /// mismatches; after a failure one more line says what to do next. Colour (ANSI SGR) only when asked; data
 /// values never carry control characters to the terminal (they are shown as visible escapes).
 /// </summary>
@@ -49,6 +49,9 @@ public static class TerminalSummary
                 if (NeedsDecision(f)) WriteFinding(output, f, colour);
             foreach (var m in script.GoldenMismatches)
                 WriteMismatch(output, m, colour, options.MaxDiffRows);
+            // A resolved finding is news (something went away): one line each.
+            foreach (var f in script.Findings)
+                if (f.Status == FindingStatus.Resolved) WriteFinding(output, f, colour);
             foreach (var status in Folded)
             {
                 var kinds = new int[ReportFacts.Kinds.Count];
@@ -67,7 +70,7 @@ public static class TerminalSummary
         WriteLastLines(report, output, colour);
     }
 
-    private static readonly FindingStatus[] Folded = [FindingStatus.Accepted, FindingStatus.Expected, FindingStatus.Resolved];
+    private static readonly FindingStatus[] Folded = [FindingStatus.Accepted, FindingStatus.Expected];
 
     private static bool NeedsDecision(Finding f) => f.Status is FindingStatus.New or FindingStatus.Changed;
 
